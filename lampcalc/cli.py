@@ -1,0 +1,423 @@
+"""The ``lampcalc`` command line: a thin layer over the library.
+
+Only click is imported at start-up; each command imports what it needs, so that
+``lampcalc --help`` answers at once. Bad input ends a command with one line on stderr
+and exit status 2, never a traceback.
+"""
+
+import sys
+from pathlib import Path
+
+import click
+
+CAUTION = (
+    "Computed from the spectra supplied: not a photometric test report and not a "
+    "photobiological safety assessment (IEC 62471). Local codes and licensed practice "
+    "govern lighting design decisions."
+)
+
+SPECTRUM_SUFFIXES = (".csv", ".tsv", ".txt", ".dat", ".json")
+
+
+class Failure(click.ClickException):
+    """A one-line error that ends the command with status 2."""
+
+    exit_code = 2
+
+    def show(self, file=None):
+        click.echo(f"lampcalc: {self.format_message()}", err=True)
+
+
+def _fail_on_input_errors(fn):
+    """Turn library InputError/ValueError raised by a command into a one-line Failure."""
+    import functools
+
+    @functools.wraps(fn)
+    def wrapper(*args, **kwargs):
+        from .errors import InputError
+
+        try:
+            return fn(*args, **kwargs)
+        except (InputError, ValueError) as err:
+            raise Failure(str(err)) from None
+
+    return wrapper
+
+
+def _progress(items, label):
+    """A progress bar on a terminal, nothing when stderr is piped."""
+    items = list(items)
+    if sys.stderr.isatty() and len(items) > 1:
+        return click.progressbar(items, label=label, file=sys.stderr)
+    return _Quiet(items)
+
+
+class _Quiet:
+    def __init__(self, items):
+        self.items = items
+
+    def __enter__(self):
+        return iter(self.items)
+
+    def __exit__(self, *exc):
+        return False
+
+
+def _write(path, text):
+    from .spectrum_files import write_atomic
+
+    try:
+        write_atomic(path, text)
+    except OSError as err:
+        raise Failure(f"{path}: cannot write ({err.strerror or err})") from None
+
+
+@click.group(context_settings={"help_option_names": ["-h", "--help"]})
+@click.version_option(package_name="lampcalc")
+def cli():
+    """Rate lamp spectra: chromaticity, CCT/Duv, rendering, efficacy, claims.
+
+    Start with `lampcalc demo`, or `lampcalc rate FILE...` on your own spectra.
+    """
+
+
+def _fmt(value, spec):
+    import math
+
+    if value is None or (isinstance(value, float) and not math.isfinite(value)):
+        return "-"
+    text = format(value, spec)
+    return format(0.0, spec) if float(text) == 0 else text
+
+
+@cli.command()
+@click.argument("temperatures", nargs=-1, required=True, metavar="T_K...")
+@click.option("--json", "as_json", is_flag=True, help="Print a JSON list instead of a table.")
+@click.option("--spectrum", "spectrum_out", type=click.Path(dir_okay=False), help="Write the spectra to this CSV.")
+@click.option(
+    "--quantity",
+    type=click.Choice(["radiance", "exitance", "energy-density", "photon-radiance"]),
+    default="radiance",
+    show_default=True,
+    help="Quantity written with --spectrum.",
+)
+@click.option(
+    "--per",
+    type=click.Choice(["wavelength", "frequency"]),
+    default="wavelength",
+    show_default=True,
+    help="Spectral density per nm or per Hz, with --spectrum.",
+)
+@click.option(
+    "--range",
+    "wl_range",
+    type=(float, float, float),
+    default=(360.0, 830.0, 1.0),
+    show_default=True,
+    metavar="START END STEP",
+    help="Wavelengths of --spectrum, nm.",
+)
+@_fail_on_input_errors
+def planck(temperatures, as_json, spectrum_out, quantity, per, wl_range):
+    """Blackbody numbers for each temperature T_K (kelvin).
+
+    Peak wavelength and frequency, total exitance, the fraction emitted in 380-780 nm,
+    the luminous efficacy of the radiation over all wavelengths, and the chromaticity
+    of the Planckian radiator.
+    """
+    import json
+
+    import numpy as np
+
+    from .blackbody import SPECTRUM_UNITS, blackbody_spectrum
+    from .blackbody_summary import summarise_blackbody
+    from .constants import C_m_per_s
+
+    values = []
+    for text in temperatures:
+        try:
+            values.append(float(text))
+        except ValueError:
+            raise Failure(f"temperature {text!r} is not a number of kelvin") from None
+    for t in values:
+        if not (np.isfinite(t) and t > 0):
+            raise Failure(f"temperature {t:g} K: must be a finite number above 0 K")
+    from .serialise import plain
+
+    cols = summarise_blackbody(values)
+    records = [{k: plain(cols[k][i]) for k in cols} for i in range(len(values))]
+    if as_json:
+        click.echo(json.dumps(records, indent=1))
+    else:
+        from .text_table import format_table
+
+        headers = ["T K", "peak nm", "peak THz", "exitance W/m2", "in 380-780", "LER lm/W", "x", "y", "CCT K", "Duv"]
+        rows = [
+            [
+                _fmt(r["temperature_K"], "g"),
+                _fmt(r["peak_wavelength_nm"], ".1f"),
+                _fmt(r["peak_frequency_THz"], ".2f"),
+                _fmt(r["radiant_exitance_W_per_m2"], ".5g"),
+                _fmt(r["visible_fraction"], ".4f"),
+                _fmt(r["ler_lm_per_W"], ".2f"),
+                _fmt(r["x"], ".5f"),
+                _fmt(r["y"], ".5f"),
+                _fmt(r["cct_K"], ".1f"),
+                _fmt(r["duv"], ".5f"),
+            ]
+            for r in records
+        ]
+        click.echo(format_table(headers, rows, "r" * len(headers)))
+        click.echo("LER over all wavelengths (Stefan-Boltzmann total); x, y with c2 = 1.4388e-2 m K (CIE 015:2018).")
+        if any(r["cct_K"] is None for r in records):
+            click.echo("CCT '-': the temperature is outside 1000-100000 K, where lampcalc gives no CCT.")
+    if spectrum_out:
+        start, end, step = wl_range
+        if not (0 < start < end and step > 0):
+            raise Failure(f"--range {start:g} {end:g} {step:g}: need 0 < START < END and STEP > 0")
+        wl = np.arange(start, end + step / 2, step)
+        q = quantity.replace("-", "_")
+        axis = wl if per == "wavelength" else C_m_per_s / (wl * 1e-9)
+        spectra = blackbody_spectrum(values, axis, quantity=q, per=per)
+        unit = SPECTRUM_UNITS[(q, per)]
+        lines = [f"# blackbody spectral {q.replace('_', ' ')} per {per}, {unit}"]
+        if per == "frequency":
+            lines.append("# evaluated at the frequencies c/wavelength")
+        lines.append(",".join(["wavelength_nm", *(f"T_{t:g}_K" for t in values)]))
+        lines += [",".join([repr(float(w)), *(repr(float(v)) for v in row)]) for w, row in zip(wl, spectra.T)]
+        _write(spectrum_out, "\n".join(lines) + "\n")
+        click.echo(f"wrote {spectrum_out}", err=True)
+
+
+def _collect_files(paths, recursive):
+    files = []
+    for p in map(Path, paths):
+        if p.is_dir():
+            if not recursive:
+                raise Failure(f"{p}: is a folder; pass -r to read the spectrum files inside it")
+            files += sorted(f for f in p.rglob("*") if f.is_file() and f.suffix.lower() in SPECTRUM_SUFFIXES)
+        else:
+            files.append(p)
+    return files
+
+
+def read_files(files, *, wavelength_unit=None, quantity=None, strict=False):
+    """Read every file; returns ``(batches, errors)``. ``strict`` stops at the first error."""
+    from .errors import InputError
+    from .spectrum_files import read_spectra
+
+    batches, errors = [], []
+    with _progress(files, "reading spectra") as bar:
+        for f in bar:
+            try:
+                batch = read_spectra(f, wavelength_unit=wavelength_unit, quantity=quantity)
+                batches.append(batch.on_grid())
+            except InputError as err:
+                if strict:
+                    raise Failure(str(err)) from None
+                errors.append(str(err))
+    return batches, errors
+
+
+def _rating_table(ratings):
+    from .text_table import format_table
+
+    rows = []
+    for r in ratings.records():
+        rows.append(
+            [
+                r["name"],
+                f"{r['range_start_nm']:g}-{r['range_end_nm']:g}",
+                _fmt(r["step_nm"], "g"),
+                _fmt(r["peak_nm"], ".0f"),
+                _fmt(r["x"], ".4f"),
+                _fmt(r["y"], ".4f"),
+                _fmt(r["u_prime"], ".4f"),
+                _fmt(r["v_prime"], ".4f"),
+                _fmt(r["cct_K"], ".0f"),
+                _fmt(r["duv"], "+.4f"),
+                _fmt(r["ler_lm_per_W"], ".1f"),
+                ", ".join(r["flags"]) or "-",
+            ]
+        )
+    headers = ["lamp", "range nm", "step", "peak nm", "x", "y", "u'", "v'", "CCT K", "Duv", "LER lm/W", "flags"]
+    return format_table(headers, rows, "llrrrrrrrrrl")
+
+
+def rate_and_write(files, *, json_out=None, csv_out=None, strict=False, wavelength_unit=None, quantity=None):
+    """Read, rate, print and write; returns the number of files that failed."""
+    from .rating import rate_spectra
+
+    batches, errors = read_files(files, wavelength_unit=wavelength_unit, quantity=quantity, strict=strict)
+    if batches:
+        ratings = rate_spectra(batches)
+        click.echo(_rating_table(ratings))
+        click.echo("LER: luminous efficacy of the radiation over the measured part of 360-830 nm, not lamp efficacy.")
+        if json_out:
+            _write(json_out, ratings.to_json())
+            click.echo(f"wrote {json_out}", err=True)
+        if csv_out:
+            _write(csv_out, ratings.to_csv())
+            click.echo(f"wrote {csv_out}", err=True)
+        click.echo(CAUTION)
+    for message in errors:
+        click.echo(f"lampcalc: {message}", err=True)
+    if errors:
+        click.echo(f"lampcalc: {len(errors)} of {len(files)} files could not be rated", err=True)
+    return len(errors)
+
+
+@cli.command()
+@click.argument("paths", nargs=-1, required=True, type=click.Path(exists=True), metavar="PATH...")
+@click.option("-r", "--recursive", is_flag=True, help="Read the spectrum files in folders and their subfolders.")
+@click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write every rating to this JSON file.")
+@click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write every rating to this CSV file.")
+@click.option("--strict", is_flag=True, help="Stop at the first file that cannot be read.")
+@click.option(
+    "--wavelength-unit",
+    type=click.Choice(["nm", "um"]),
+    default=None,
+    help="Unit of the wavelength column (default: what the file says, else nm).",
+)
+@click.option(
+    "--quantity",
+    type=click.Choice(["relative", "flux", "irradiance", "radiance"]),
+    default=None,
+    help="Radiometric quantity of the spectra (default: what the file says, else relative).",
+)
+@_fail_on_input_errors
+def rate(paths, recursive, json_out, csv_out, strict, wavelength_unit, quantity):
+    """Rate every spectrum in the files (and with -r, folders) given.
+
+    Each file holds a wavelength column and one column per lamp (or lampcalc JSON).
+    Files that cannot be read are reported at the end; the others are still rated.
+    """
+    files = _collect_files(paths, recursive)
+    if not files:
+        raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
+    failed = rate_and_write(
+        files, json_out=json_out, csv_out=csv_out, strict=strict, wavelength_unit=wavelength_unit, quantity=quantity
+    )
+    if failed:
+        sys.exit(2)
+
+
+@cli.command()
+@click.argument("csv_file", required=False, type=click.Path(exists=True, dir_okay=False), metavar="[FILE.csv]")
+@click.option("--xy", "xy", type=(float, float), multiple=True, metavar="X Y", help="CIE 1931 x, y (repeatable).")
+@click.option("--uv", "uv", type=(float, float), multiple=True, metavar="U V", help="CIE 1960 u, v (repeatable).")
+@click.option(
+    "--upvp", "upvp", type=(float, float), multiple=True, metavar="U' V'", help="CIE 1976 u', v' (repeatable)."
+)
+@click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write the rows with cct_K, duv, flag to CSV.")
+@click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write the rows with cct_K, duv, flag to JSON.")
+@click.option(
+    "--observer",
+    type=click.Choice(["1931_2deg", "1964_10deg"]),
+    default="1931_2deg",
+    show_default=True,
+    help="Observer of the Planckian locus.",
+)
+@_fail_on_input_errors
+def cct(csv_file, xy, uv, upvp, csv_out, json_out, observer):
+    """CCT and Duv of chromaticities: given as options, or a CSV FILE with columns x,y or u,v
+    or u_prime,v_prime.
+
+    CCT is the temperature of the nearest point of the Planckian locus in CIE 1960 u, v
+    (CIE 015:2018); Duv is the distance, positive above the locus. Outside 1000-100000 K
+    there is no CCT; beyond |Duv| = 0.05 it is flagged.
+    """
+    from . import chromaticity_files as cf
+
+    if csv_out and json_out:
+        raise Failure("choose one of --csv and --json")
+    if csv_file and (xy or uv or upvp):
+        raise Failure("give either a FILE or --xy/--uv/--upvp points, not both")
+    if not csv_file and not (xy or uv or upvp):
+        raise Failure("nothing to convert: give a FILE.csv or points with --xy, --uv or --upvp")
+    out_path, form = (csv_out, "csv") if csv_out else (json_out, "json") if json_out else (None, None)
+    writer = cf.StreamWriter(out_path, form) if out_path else None
+    problems, shown = [], []
+    try:
+        if csv_file:
+            import os
+
+            size = os.path.getsize(csv_file)
+            bar = click.progressbar(length=size, label="converting", file=sys.stderr) if sys.stderr.isatty() else None
+            done = 0
+            for header, kind, rows, coords, bad, fraction in cf.iter_chunks(csv_file):
+                c, d, flags = cf.convert(coords, kind, observer)
+                problems += bad
+                if writer:
+                    writer.write(header, rows, c, d, flags)
+                else:
+                    shown += [(", ".join(r), ci, di, f) for r, ci, di, f in zip(rows, c, d, flags)]
+                if bar:
+                    bar.update(int(fraction * size) - done)
+                    done = int(fraction * size)
+            if bar:
+                bar.render_finish()
+        else:
+            import numpy as np
+
+            for option, values in (("x,y", xy), ("u,v", uv), ("u_prime,v_prime", upvp)):
+                if not values:
+                    continue
+                kind = tuple(option.split(","))
+                c, d, flags = cf.convert(np.array(values, dtype=float), kind, observer)
+                header = list(kind)
+                rows = [[repr(a), repr(b)] for a, b in values]
+                if writer:
+                    writer.write(header, rows, c, d, flags)
+                shown += [(f"{option.replace('_prime', chr(39))} = {a:g}, {b:g}", ci, di, f)
+                          for (a, b), ci, di, f in zip(values, c, d, flags)]
+    except BaseException:
+        if writer:
+            writer.abort()
+        raise
+    if writer:
+        writer.close()
+        click.echo(f"wrote {writer.count} rows to {out_path}", err=True)
+    if shown:
+        from .text_table import format_table
+
+        rows = [[p, _fmt(c, ".2f"), _fmt(d, "+.6f"), f or "-"] for p, c, d, f in shown]
+        click.echo(format_table(["input", "CCT K", "Duv", "flag"], rows, "lrrl"))
+        if any(f for *_, f in shown):
+            click.echo(
+                "flags: cct_below_1000K / cct_above_100000K: no CCT in range (shown '-'); "
+                "duv_beyond_0.05: computed, but CIE 015 advises against using a CCT this far from the locus."
+            )
+    for message in problems:
+        click.echo(f"lampcalc: {message}", err=True)
+    if problems:
+        click.echo(f"lampcalc: {len(problems)} rows could not be read; the others were converted", err=True)
+        sys.exit(2)
+
+
+@cli.command()
+@click.option(
+    "--out",
+    "out_dir",
+    type=click.Path(file_okay=False),
+    default="lampcalc-demo",
+    show_default=True,
+    help="Folder for the demo's output.",
+)
+@_fail_on_input_errors
+def demo(out_dir):
+    """Rate the bundled demo lamps of a fictional supplier and write the results."""
+    from .demo import demo_files
+
+    out = Path(out_dir)
+    out.mkdir(parents=True, exist_ok=True)
+    files = demo_files()
+    click.echo(f"Demo: {len(files)} spectrum files from the fictional supplier in lampcalc's spectra_demo/\n")
+    failed = rate_and_write(files, json_out=out / "ratings.json", csv_out=out / "ratings.csv")
+    if failed:
+        sys.exit(2)
+
+
+def main(argv=None):
+    """Entry point of the ``lampcalc`` console script."""
+    cli.main(args=argv, prog_name="lampcalc")

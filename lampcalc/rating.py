@@ -1,0 +1,160 @@
+"""Rating a batch of lamps: every number lampcalc reports for each spectrum.
+
+:func:`rate_spectra` brings the spectra onto the CIE 015:2018 grid, computes every
+rating for the whole batch at once and returns a :class:`Ratings` table: one column
+per quantity, one row per lamp. Its JSON and CSV forms use the keys of
+:data:`FIELDS`, documented in ``docs/output-fields.md``.
+"""
+
+import csv
+import io
+import json
+
+import numpy as np
+
+from .colorimetry import (
+    XYZ_to_xy,
+    luminous_efficacy_of_radiation,
+    luminous_quantity,
+    radiant_quantity,
+    tristimulus,
+    xy_to_upvp,
+    xy_to_uv,
+)
+from .locus import locate, status_words
+from .resampling import GRID_NM
+from .serialise import cell, plain
+from .spectra import SpectralBatch
+
+#: Output fields in order: key -> description (with unit). Lists are noted as such.
+FIELDS = {
+    "name": "lamp name, from the file's header or the file name",
+    "source": "file and column the spectrum came from",
+    "quantity": "radiometric quantity of the spectrum: relative, flux, irradiance or radiance",
+    "range_start_nm": "first measured wavelength, nm",
+    "range_end_nm": "last measured wavelength, nm",
+    "step_nm": "median measurement interval, nm",
+    "peak_nm": "wavelength of the spectrum's maximum on the 1 nm grid, nm",
+    "x": "CIE 1931 chromaticity x",
+    "y": "CIE 1931 chromaticity y",
+    "u": "CIE 1960 UCS u",
+    "v": "CIE 1960 UCS v",
+    "u_prime": "CIE 1976 UCS u'",
+    "v_prime": "CIE 1976 UCS v'",
+    "cct_K": "correlated colour temperature, exact nearest point on the Planckian locus, K (null outside 1000-100000 K)",
+    "duv": "signed distance from the Planckian locus in CIE 1960 u, v; positive above (greenish)",
+    "ler_lm_per_W": "luminous efficacy of radiation over ler_range_nm, lm/W (not the lamp's efficacy)",
+    "ler_range_nm": "[start, end] of the wavelengths LER is computed over, nm (list)",
+    "luminous_flux_lm": "luminous flux, lm (spectra in W/nm only)",
+    "illuminance_lx": "illuminance, lx (spectra in W/(m2 nm) only)",
+    "luminance_cd_per_m2": "luminance, cd/m2 (spectra in W/(sr m2 nm) only)",
+    "radiant_flux_W": "radiant flux over ler_range_nm, W (spectra in W/nm only)",
+    "electrical_W": "electrical power from the input, W",
+    "efficacy_lm_per_W": "lamp luminous efficacy, luminous flux / electrical power, lm/W",
+    "flags": "conditions that qualify the numbers (list of strings, see docs/output-fields.md)",
+}
+
+_LUMINOUS_FIELD = {"flux": "luminous_flux_lm", "irradiance": "illuminance_lx", "radiance": "luminance_cd_per_m2"}
+
+
+class Ratings:
+    """Ratings of a batch of lamps: columns of :data:`FIELDS`, one row per lamp.
+
+    ``ratings[key]`` is the column (a NumPy array, or a tuple for strings and lists);
+    :meth:`records` gives one dict per lamp with JSON-ready values (NaN → None).
+    """
+
+    def __init__(self, columns):
+        self.columns = dict(columns)
+
+    def __getitem__(self, key):
+        return self.columns[key]
+
+    def __len__(self):
+        return len(self.columns["name"])
+
+    def records(self):
+        """One dict per lamp, keys in :data:`FIELDS` order, NaN as None."""
+        keys = [k for k in FIELDS if k in self.columns]
+        return [{k: plain(self.columns[k][i]) for k in keys} for i in range(len(self))]
+
+    def to_json(self):
+        """JSON text: a list with one object per lamp."""
+        return json.dumps(self.records(), indent=1, allow_nan=False) + "\n"
+
+    def to_csv(self):
+        """CSV text: one row per lamp; list fields are joined with ';'."""
+        records = self.records()
+        keys = [k for k in FIELDS if k in self.columns]
+        out = io.StringIO()
+        writer = csv.writer(out, lineterminator="\n")
+        writer.writerow(keys)
+        for rec in records:
+            writer.writerow([cell(rec[k]) for k in keys])
+        return out.getvalue()
+
+
+def _as_grid_batch(spectra, interpolation):
+    if isinstance(spectra, SpectralBatch):
+        spectra = [spectra]
+    return SpectralBatch.concatenate([b.on_grid(interpolation) for b in spectra])
+
+
+def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear"):
+    """Rate every lamp in one or more batches of spectra.
+
+    Parameters
+    ----------
+    spectra : SpectralBatch or sequence of SpectralBatch
+        Spectra as read, on any grid; they are resampled onto 360–830 nm at 1 nm.
+    observer : {"1931_2deg", "1964_10deg"}
+        Observer for the chromaticities.
+    interpolation : {"linear", "sprague"}
+        See :mod:`lampcalc.resampling`.
+
+    Returns
+    -------
+    Ratings
+    """
+    batch = _as_grid_batch(spectra, interpolation)
+    n = batch.n_lamps
+    values = batch.values
+    xy = XYZ_to_xy(tristimulus(values, observer))
+    uv = xy_to_uv(xy)
+    upvp = xy_to_upvp(xy)
+    cct, duv, status = locate(uv, observer)
+    lo, hi = batch.measured_range_nm[:, 0], batch.measured_range_nm[:, 1]
+    cols = {
+        "name": batch.names,
+        "source": batch.sources,
+        "quantity": batch.quantity,
+        "range_start_nm": lo,
+        "range_end_nm": hi,
+        "step_nm": batch.measured_step_nm,
+        "peak_nm": GRID_NM[np.argmax(values, axis=1)],
+        "x": xy[:, 0],
+        "y": xy[:, 1],
+        "u": uv[:, 0],
+        "v": uv[:, 1],
+        "u_prime": upvp[:, 0],
+        "v_prime": upvp[:, 1],
+        "cct_K": cct,
+        "duv": duv,
+        "ler_lm_per_W": luminous_efficacy_of_radiation(values),
+        "ler_range_nm": np.stack([np.maximum(lo, GRID_NM[0]), np.minimum(hi, GRID_NM[-1])], axis=1),
+    }
+    luminous = luminous_quantity(values)
+    radiant = radiant_quantity(values)
+    quantity = np.array(batch.quantity)
+    for q, key in _LUMINOUS_FIELD.items():
+        cols[key] = np.where(quantity == q, luminous, np.nan)
+    cols["radiant_flux_W"] = np.where(quantity == "flux", radiant, np.nan)
+    cols["electrical_W"] = batch.electrical_W
+    cols["efficacy_lm_per_W"] = cols["luminous_flux_lm"] / batch.electrical_W
+    flags = [list(f) + status_words(st) for f, st in zip(batch.flags, status)]
+    for i in range(n):
+        if np.isfinite(batch.electrical_W[i]) and batch.quantity[i] != "flux":
+            flags[i].append("efficacy_needs_flux_spectrum")
+    cols["flags"] = tuple(tuple(f) for f in flags)
+    return Ratings(cols)
+

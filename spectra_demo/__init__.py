@@ -1,0 +1,1 @@
+"""Demo spectra of a fictional supplier, shipped as package data."""
