@@ -64,6 +64,13 @@ _EXPORTS = {
     "daylight_locus_xy": "daylight",
     "daylight_spectrum": "daylight",
     "summarise_blackbody": "blackbody_summary",
+    "colour_rendering": "rendering",
+    "cie13_rendering": "rendering",
+    "cie224_fidelity": "rendering",
+    "scotopic_photopic_ratio": "photoreceptors",
+    "alpha_opic_elr": "photoreceptors",
+    "alpha_opic_der": "photoreceptors",
+    "melanopic_edi_lx": "photoreceptors",
 }
 
 __all__ = sorted(_EXPORTS)

@@ -219,29 +219,47 @@ def read_files(files, *, wavelength_unit=None, quantity=None, strict=False):
     return batches, errors
 
 
+def _flagged(value, spec, doubtful):
+    """A number, in parentheses when a flag says it is not to be used as an ordinary value."""
+    text = _fmt(value, spec)
+    return f"({text})" if doubtful and text != "-" else text
+
+
 def _rating_table(ratings):
     from .text_table import format_table
 
     rows = []
     for r in ratings.records():
+        flags = set(r["flags"])
+        cri_doubt = "cri_outside_validity" in flags
+        fid_doubt = "duv_beyond_0.05" in flags
+        r9 = r["ri"][8] if r["ri"] else None
         rows.append(
             [
                 r["name"],
-                f"{r['range_start_nm']:g}-{r['range_end_nm']:g}",
-                _fmt(r["step_nm"], "g"),
-                _fmt(r["peak_nm"], ".0f"),
-                _fmt(r["x"], ".4f"),
-                _fmt(r["y"], ".4f"),
-                _fmt(r["u_prime"], ".4f"),
-                _fmt(r["v_prime"], ".4f"),
                 _fmt(r["cct_K"], ".0f"),
                 _fmt(r["duv"], "+.4f"),
+                _flagged(r["ra"], ".1f", cri_doubt),
+                _flagged(r9, ".1f", cri_doubt),
+                _flagged(r["rf"], ".1f", fid_doubt),
+                _flagged(r["rg"], ".1f", fid_doubt),
                 _fmt(r["ler_lm_per_W"], ".1f"),
+                _fmt(r["efficacy_lm_per_W"], ".1f"),
+                _fmt(r["sp_ratio"], ".2f"),
+                _fmt(r["melanopic_der"], ".3f"),
                 ", ".join(r["flags"]) or "-",
             ]
         )
-    headers = ["lamp", "range nm", "step", "peak nm", "x", "y", "u'", "v'", "CCT K", "Duv", "LER lm/W", "flags"]
-    return format_table(headers, rows, "llrrrrrrrrrl")
+    headers = ["lamp", "CCT K", "Duv", "Ra", "R9", "Rf", "Rg", "LER lm/W", "lm/W", "S/P", "mel-DER", "flags"]
+    return format_table(headers, rows, "lrrrrrrrrrrl")
+
+
+_TABLE_NOTES = (
+    "LER: efficacy of the radiation over the measured part of 360-830 nm; lm/W: lamp efficacy "
+    "(needs W/nm and the electrical power).\n"
+    "Ra, R9: CIE 13.3-1995, unrounded. Rf, Rg: CIE 224:2017 / ANSI/IES TM-30-18. "
+    "(values): computed outside the method's validity; '-': not computable."
+)
 
 
 def rate_and_write(files, *, json_out=None, csv_out=None, strict=False, wavelength_unit=None, quantity=None):
@@ -252,7 +270,7 @@ def rate_and_write(files, *, json_out=None, csv_out=None, strict=False, waveleng
     if batches:
         ratings = rate_spectra(batches)
         click.echo(_rating_table(ratings))
-        click.echo("LER: luminous efficacy of the radiation over the measured part of 360-830 nm, not lamp efficacy.")
+        click.echo(_TABLE_NOTES)
         if json_out:
             _write(json_out, ratings.to_json())
             click.echo(f"wrote {json_out}", err=True)

@@ -49,15 +49,16 @@ def daylight_locus_xy(cct_K):
     return np.stack([x, y], axis=-1)
 
 
-def daylight_spectrum(cct_K):
+def daylight_spectrum(cct_K, interpolation="linear"):
     """Relative spectra of CIE daylight on the grid (360–830 nm, 1 nm), shape ``(..., 471)``.
 
-    Scaled as CIE 015 scales them (S0 + M1·S1 + M2·S2, 100 near 560 nm).
+    Scaled as CIE 015 scales them (S0 + M1·S1 + M2·S2, 100 near 560 nm). The 5 nm
+    components are interpolated to 1 nm linearly (CIE 015), or by ``"sprague"``.
     """
     xy = daylight_locus_xy(cct_K)
     x, y = xy[..., 0], xy[..., 1]
     m = 0.0241 + 0.2562 * x - 0.7341 * y
     m1 = np.round((-1.3515 - 1.7703 * x + 5.9114 * y) / m, 3)
     m2 = np.round((0.0300 - 31.4424 * x + 30.0717 * y) / m, 3)
-    s = daylight_components()
+    s = daylight_components(interpolation)
     return s[:, 0] + m1[..., None] * s[:, 1] + m2[..., None] * s[:, 2]

@@ -22,6 +22,9 @@ from .colorimetry import (
     xy_to_uv,
 )
 from .locus import locate, status_words
+from .photoreceptors import ALPHA_OPIC, alpha_opic_der, alpha_opic_elr, scotopic_photopic_ratio
+from .rendering.cie13 import DC_LIMIT, cie13_rendering
+from .rendering.cie224 import cie224_fidelity
 from .resampling import GRID_NM
 from .serialise import cell, plain
 from .spectra import SpectralBatch
@@ -43,6 +46,14 @@ FIELDS = {
     "v_prime": "CIE 1976 UCS v'",
     "cct_K": "correlated colour temperature, exact nearest point on the Planckian locus, K (null outside 1000-100000 K)",
     "duv": "signed distance from the Planckian locus in CIE 1960 u, v; positive above (greenish)",
+    "ra": "CIE 13.3 general colour rendering index Ra (unrounded)",
+    "ri": "CIE 13.3 special indices R1..R15 in order (list; R15 is the JIS Z 8726 skin-tone sample)",
+    "cri_dc": "CIE 13.3 distance DC between lamp and reference in CIE 1960 u, v (valid up to 5.4e-3)",
+    "rf": "CIE 224:2017 / ANSI/IES TM-30-18 fidelity index Rf",
+    "rg": "ANSI/IES TM-30-18 gamut index Rg",
+    "rf_hue_bins": "TM-30-18 local fidelity Rf,h1..Rf,h16 (list)",
+    "chroma_shift_hue_bins_percent": "TM-30-18 local chroma shift Rcs,h1..Rcs,h16, % (list)",
+    "hue_shift_hue_bins_rad": "TM-30-18 local hue shift Rhs,h1..Rhs,h16, radians (list)",
     "ler_lm_per_W": "luminous efficacy of radiation over ler_range_nm, lm/W (not the lamp's efficacy)",
     "ler_range_nm": "[start, end] of the wavelengths LER is computed over, nm (list)",
     "luminous_flux_lm": "luminous flux, lm (spectra in W/nm only)",
@@ -51,6 +62,18 @@ FIELDS = {
     "radiant_flux_W": "radiant flux over ler_range_nm, W (spectra in W/nm only)",
     "electrical_W": "electrical power from the input, W",
     "efficacy_lm_per_W": "lamp luminous efficacy, luminous flux / electrical power, lm/W",
+    "sp_ratio": "scotopic/photopic ratio, 1700·ΣV'S / (683·ΣVS) over 380-780 nm",
+    "s_cone_elr_mW_per_lm": "CIE S 026 s-cone-opic efficacy of luminous radiation, mW/lm",
+    "m_cone_elr_mW_per_lm": "CIE S 026 m-cone-opic efficacy of luminous radiation, mW/lm",
+    "l_cone_elr_mW_per_lm": "CIE S 026 l-cone-opic efficacy of luminous radiation, mW/lm",
+    "rhodopic_elr_mW_per_lm": "CIE S 026 rhodopic efficacy of luminous radiation, mW/lm",
+    "melanopic_elr_mW_per_lm": "CIE S 026 melanopic efficacy of luminous radiation, mW/lm",
+    "s_cone_der": "CIE S 026 s-cone-opic daylight (D65) efficacy ratio",
+    "m_cone_der": "CIE S 026 m-cone-opic daylight (D65) efficacy ratio",
+    "l_cone_der": "CIE S 026 l-cone-opic daylight (D65) efficacy ratio",
+    "rhodopic_der": "CIE S 026 rhodopic daylight (D65) efficacy ratio",
+    "melanopic_der": "CIE S 026 melanopic daylight (D65) efficacy ratio",
+    "melanopic_edi_lx": "melanopic equivalent daylight (D65) illuminance, lx (spectra in W/(m2 nm) only)",
     "flags": "conditions that qualify the numbers (list of strings, see docs/output-fields.md)",
 }
 
@@ -100,6 +123,22 @@ def _as_grid_batch(spectra, interpolation):
     return SpectralBatch.concatenate([b.on_grid(interpolation) for b in spectra])
 
 
+def _rendering(values, cct):
+    """Colour rendering columns for the batch (CIE 13.3 and CIE 224 / TM-30-18)."""
+    cri = cie13_rendering(values, cct)
+    fid = cie224_fidelity(values, cct)
+    return {
+        "ra": cri["ra"],
+        "ri": cri["ri"],
+        "cri_dc": cri["dc"],
+        "rf": fid["rf"],
+        "rg": fid["rg"],
+        "rf_hue_bins": fid["rf_bins"],
+        "chroma_shift_hue_bins_percent": 100.0 * fid["rcs_bins"],
+        "hue_shift_hue_bins_rad": fid["rhs_bins"],
+    }
+
+
 def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear"):
     """Rate every lamp in one or more batches of spectra.
 
@@ -140,6 +179,7 @@ def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear"):
         "v_prime": upvp[:, 1],
         "cct_K": cct,
         "duv": duv,
+        **_rendering(values, cct),
         "ler_lm_per_W": luminous_efficacy_of_radiation(values),
         "ler_range_nm": np.stack([np.maximum(lo, GRID_NM[0]), np.minimum(hi, GRID_NM[-1])], axis=1),
     }
@@ -151,10 +191,21 @@ def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear"):
     cols["radiant_flux_W"] = np.where(quantity == "flux", radiant, np.nan)
     cols["electrical_W"] = batch.electrical_W
     cols["efficacy_lm_per_W"] = cols["luminous_flux_lm"] / batch.electrical_W
+    cols["sp_ratio"] = scotopic_photopic_ratio(values)
+    elr, der = alpha_opic_elr(values), alpha_opic_der(values)
+    for k, name in enumerate(ALPHA_OPIC):
+        cols[f"{name}_elr_mW_per_lm"] = elr[:, k]
+    for k, name in enumerate(ALPHA_OPIC):
+        cols[f"{name}_der"] = der[:, k]
+    cols["melanopic_edi_lx"] = cols["illuminance_lx"] * der[:, 4]
     flags = [list(f) + status_words(st) for f, st in zip(batch.flags, status)]
     for i in range(n):
         if np.isfinite(batch.electrical_W[i]) and batch.quantity[i] != "flux":
             flags[i].append("efficacy_needs_flux_spectrum")
+        if not np.isfinite(cols["ra"][i]):
+            flags[i].append("rendering_not_meaningful")
+        elif cols["cri_dc"][i] > DC_LIMIT:
+            flags[i].append("cri_outside_validity")
     cols["flags"] = tuple(tuple(f) for f in flags)
     return Ratings(cols)
 

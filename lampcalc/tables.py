@@ -80,14 +80,17 @@ def scotopic_luminous_efficiency():
 
 
 @functools.lru_cache(maxsize=None)
-def daylight_components():
+def daylight_components(interpolation="linear"):
     """CIE daylight components S0, S1, S2 on the grid, shape ``(471, 3)``.
 
-    Tabulated at 5 nm (CIE 015:2018), where the values between the original 10 nm
-    ones are themselves linear interpolations; brought to 1 nm linearly, as CIE 015
-    does for these components.
+    Tabulated at 5 nm (CIE 015:2018), where the values between the original 10 nm ones
+    are themselves linear interpolations (Kránicz & Schanda, Color Res. Appl. 25, 2000);
+    brought to 1 nm linearly by default, as CIE 015 does. ``"sprague"`` is offered because
+    some implementations of the fidelity index interpolate them so (see docs/rendering.md).
     """
-    return _on_grid("daylight_components.csv", "linear")
+    if interpolation not in ("linear", "sprague"):
+        raise ValueError(f"unknown interpolation {interpolation!r}; choose one of linear, sprague")
+    return _on_grid("daylight_components.csv", interpolation)
 
 
 @functools.lru_cache(maxsize=None)

@@ -112,8 +112,9 @@ def render_tables(s026_path):
     )
     tcs15 = SDS_TCS["CIE 2024"]["TCS15"]
     tables["cie13_tcs15.csv"] = _from_sd(
-        "Test colour sample TCS15 (the skin-tone sample of JIS Z 8726 used for R15), spectral "
-        "radiance factors, 5 nm, 380-780 nm.\n"
+        "Test colour sample 15 (Japanese skin complexion, JIS Z 8726, used for R15), spectral radiance "
+        "factors, 5 nm, 380-780 nm. CIE data set 'Spectral radiance factors of test-colour sample #15 of "
+        "the Japanese skin complexion' (2024), DOI 10.25039/CIE.DS.7chm7z5h, CC BY-SA 4.0.\n"
         f"From {version}, dataset SDS_TCS['CIE 2024']['TCS15'].",
         ["tcs15"],
         tcs15,
