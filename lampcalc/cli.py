@@ -239,6 +239,8 @@ def _rating_table(ratings):
                 r["name"],
                 _fmt(r["cct_K"], ".0f"),
                 _fmt(r["duv"], "+.4f"),
+                _fmt(r["ansi_nominal_cct_K"], ".0f"),
+                _fmt(r["sdcm_steps"], ".1f"),
                 _flagged(r["ra"], ".1f", cri_doubt),
                 _flagged(r9, ".1f", cri_doubt),
                 _flagged(r["rf"], ".1f", fid_doubt),
@@ -250,13 +252,14 @@ def _rating_table(ratings):
                 ", ".join(r["flags"]) or "-",
             ]
         )
-    headers = ["lamp", "CCT K", "Duv", "Ra", "R9", "Rf", "Rg", "LER lm/W", "lm/W", "S/P", "mel-DER", "flags"]
-    return format_table(headers, rows, "lrrrrrrrrrrl")
+    headers = ["lamp", "CCT K", "Duv", "ANSI", "steps", "Ra", "R9", "Rf", "Rg", "LER lm/W", "lamp lm/W", "S/P", "mel-DER", "flags"]
+    return format_table(headers, rows, "lrrrrrrrrrrrrl")
 
 
 _TABLE_NOTES = (
-    "LER: efficacy of the radiation over the measured part of 360-830 nm; lm/W: lamp efficacy "
-    "(needs W/nm and the electrical power).\n"
+    "ANSI: the ANSI C78.377-2017 nominal CCT category the lamp is in; steps: IEC 60081 ellipse steps from the\n"
+    "centre of the claimed nominal CCT, else of the nearest category. LER: efficacy of the radiation over the\n"
+    "measured part of 360-830 nm; lamp lm/W: lamp efficacy (needs W/nm and the electrical power).\n"
     "Ra, R9: CIE 13.3-1995, unrounded. Rf, Rg: CIE 224:2017 / ANSI/IES TM-30-18. "
     "(values): computed outside the method's validity; '-': not computable."
 )
@@ -264,11 +267,9 @@ _TABLE_NOTES = (
 
 def rate_and_write(files, *, json_out=None, csv_out=None, strict=False, wavelength_unit=None, quantity=None):
     """Read, rate, print and write; returns the number of files that failed."""
-    from .rating import rate_spectra
-
     batches, errors = read_files(files, wavelength_unit=wavelength_unit, quantity=quantity, strict=strict)
     if batches:
-        ratings = rate_spectra(batches)
+        ratings = _rate(batches)
         click.echo(_rating_table(ratings))
         click.echo(_TABLE_NOTES)
         if json_out:
@@ -285,26 +286,49 @@ def rate_and_write(files, *, json_out=None, csv_out=None, strict=False, waveleng
     return len(errors)
 
 
+def _rate(batches, nominal=None):
+    from .rating import rate_spectra
+    from .spectra import SpectralBatch
+
+    batch = SpectralBatch.concatenate(batches)
+    if batch.n_lamps > 200 and sys.stderr.isatty():
+        click.echo(f"rating {batch.n_lamps} lamps ...", err=True)
+    names = batch.names
+    nominal_cct = None if nominal is None else [nominal.get(name, float("nan")) for name in names]
+    return rate_spectra(batch, nominal_cct_K=nominal_cct)
+
+
+def _spectrum_options(fn):
+    """Options shared by the commands that read spectrum files."""
+    for option in reversed(
+        [
+            click.option("-r", "--recursive", is_flag=True, help="Read the spectrum files in folders and their subfolders."),
+            click.option("--strict", is_flag=True, help="Stop at the first file that cannot be read."),
+            click.option(
+                "--wavelength-unit",
+                type=click.Choice(["nm", "um"]),
+                default=None,
+                help="Unit of the wavelength column (default: what the file says, else nm).",
+            ),
+            click.option(
+                "--quantity",
+                type=click.Choice(["relative", "flux", "irradiance", "radiance"]),
+                default=None,
+                help="Radiometric quantity of the spectra (default: what the file says, else relative).",
+            ),
+        ]
+    ):
+        fn = option(fn)
+    return fn
+
+
 @cli.command()
 @click.argument("paths", nargs=-1, required=True, type=click.Path(exists=True), metavar="PATH...")
-@click.option("-r", "--recursive", is_flag=True, help="Read the spectrum files in folders and their subfolders.")
 @click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write every rating to this JSON file.")
 @click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write every rating to this CSV file.")
-@click.option("--strict", is_flag=True, help="Stop at the first file that cannot be read.")
-@click.option(
-    "--wavelength-unit",
-    type=click.Choice(["nm", "um"]),
-    default=None,
-    help="Unit of the wavelength column (default: what the file says, else nm).",
-)
-@click.option(
-    "--quantity",
-    type=click.Choice(["relative", "flux", "irradiance", "radiance"]),
-    default=None,
-    help="Radiometric quantity of the spectra (default: what the file says, else relative).",
-)
+@_spectrum_options
 @_fail_on_input_errors
-def rate(paths, recursive, json_out, csv_out, strict, wavelength_unit, quantity):
+def rate(paths, json_out, csv_out, recursive, strict, wavelength_unit, quantity):
     """Rate every spectrum in the files (and with -r, folders) given.
 
     Each file holds a wavelength column and one column per lamp (or lampcalc JSON).
@@ -413,6 +437,114 @@ def cct(csv_file, xy, uv, upvp, csv_out, json_out, observer):
         sys.exit(2)
 
 
+_CRITERIA = {
+    # criterion: (label, claimed format, value format, unit)
+    "ansi_quadrangle": ("ANSI quadrangle", "{:g} K", "{:.0f} K", "e-3 uv"),
+    "ansi_cct_K": ("ANSI target CCT", "{:g} K", "{:.0f} K", "K"),
+    "ansi_duv": ("ANSI target Duv", "{:+.4f}", "{:+.4f}", ""),
+    "sdcm_steps": ("colour consistency", "<= {:g} steps", "{:.2f} steps", "steps"),
+    "ra": ("Ra", ">= {:g}", "{:.1f}", ""),
+    "r9": ("R9", ">= {:g}", "{:.1f}", ""),
+    "rf": ("Rf", ">= {:g}", "{:.1f}", ""),
+    "rg_min": ("Rg", ">= {:g}", "{:.1f}", ""),
+    "rg_max": ("Rg", "<= {:g}", "{:.1f}", ""),
+    "ler_lm_per_W": ("LER", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
+    "efficacy_lm_per_W": ("lamp efficacy", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
+}
+_RESULT = {True: "holds", False: "FAILS", None: "not shown"}
+
+
+def _verdict_text(verdicts):
+    import math
+
+    from .text_table import format_table
+
+    blocks = []
+    for lamp in verdicts.lamps:
+        rows = []
+        for c in lamp["checks"]:
+            label, claimed_fmt, value_fmt, unit = _CRITERIA[c["criterion"]]
+            claimed = claimed_fmt.format(c["claimed"]) if c["claimed"] is not None else "-"
+            measured = value_fmt.format(c["measured"]) if c["measured"] is not None else "-"
+            margin = "-" if c["margin"] is None or not math.isfinite(c["margin"]) else f"{c['margin']:+.4g} {unit}".strip()
+            rows.append([label, claimed, measured, margin, _RESULT[c["pass"]], c["note"]])
+        failing = sum(c["pass"] is not True for c in lamp["checks"])
+        head = f"{lamp['lamp']}: " + ("every claim holds" if lamp["pass"] else f"{failing} of {len(lamp['checks'])} checks do not hold")
+        table = format_table(["claim", "claimed", "measured", "margin", "result", "note"], rows, "lllrll")
+        blocks.append(head + "\n" + "\n".join("  " + line for line in table.splitlines()))
+    blocks.append(
+        "margin: how far the measurement is on the right side of the claim (negative: it fails by that much);\n"
+        "for the ANSI quadrangle, the distance from its nearest edge in CIE 1960 u,v (x 1e-3)."
+    )
+    return "\n\n".join(blocks)
+
+
+def check_and_write(files, claims_path, *, json_out=None, csv_out=None, strict=False, wavelength_unit=None,
+                    quantity=None, steps="ellipse", centre="ansi", quiet_table=False):
+    """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2)."""
+    from .claims import check_claims, read_claims
+
+    claims = read_claims(claims_path)
+    batches, errors = read_files(files, wavelength_unit=wavelength_unit, quantity=quantity, strict=strict)
+    for message in errors:
+        click.echo(f"lampcalc: {message}", err=True)
+    if not batches:
+        raise Failure("no spectrum could be read")
+    nominal = {c.lamp: c.values["nominal_cct_K"] for c in claims.values() if "nominal_cct_K" in c.values}
+    ratings = _rate(batches, nominal)
+    verdicts = check_claims(claims, ratings, claims_path, sdcm_method=steps, sdcm_centre=centre)
+    if not quiet_table:
+        click.echo(_rating_table(ratings))
+        click.echo(_TABLE_NOTES + "\n")
+    click.echo(_verdict_text(verdicts))
+    click.echo("\n" + verdicts.summary())
+    if json_out:
+        _write(json_out, verdicts.to_json())
+        click.echo(f"wrote {json_out}", err=True)
+    if csv_out:
+        _write(csv_out, verdicts.to_csv())
+        click.echo(f"wrote {csv_out}", err=True)
+    click.echo(CAUTION)
+    if errors:
+        click.echo(f"lampcalc: {len(errors)} of {len(files)} spectrum files could not be read", err=True)
+        return 2
+    return 0 if verdicts.all_hold else 1
+
+
+@cli.command()
+@click.argument("paths", nargs=-1, required=True, type=click.Path(exists=True), metavar="SPECTRA...")
+@click.option(
+    "--claims", "claims_path", required=True, type=click.Path(exists=True, dir_okay=False),
+    help="CSV of the supplier's claims, one row per lamp (docs/claims.md).",
+)
+@click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write the verdicts to this JSON file.")
+@click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write one row per check to this CSV file.")
+@click.option(
+    "--steps", type=click.Choice(["ellipse", "circle"]), default="ellipse", show_default=True,
+    help="Colour-consistency steps: IEC 60081 ellipses or CIE TN 001 u'v' circles.",
+)
+@click.option(
+    "--centre", type=click.Choice(["ansi", "iec"]), default="ansi", show_default=True,
+    help="Centre of the steps: ANSI C78.377 target of the nominal CCT, or the IEC 60081 colour centre.",
+)
+@_spectrum_options
+@_fail_on_input_errors
+def check(paths, claims_path, json_out, csv_out, steps, centre, recursive, strict, wavelength_unit, quantity):
+    """Check a supplier's claims against the spectra: one verdict per claim.
+
+    Exit status 0 when every claim holds, 1 when any does not (or cannot be shown to),
+    2 for bad input.
+    """
+    files = _collect_files(paths, recursive)
+    if not files:
+        raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
+    status = check_and_write(
+        files, claims_path, json_out=json_out, csv_out=csv_out, strict=strict,
+        wavelength_unit=wavelength_unit, quantity=quantity, steps=steps, centre=centre,
+    )
+    sys.exit(status)
+
+
 @cli.command()
 @click.option(
     "--out",
@@ -424,16 +556,26 @@ def cct(csv_file, xy, uv, upvp, csv_out, json_out, observer):
 )
 @_fail_on_input_errors
 def demo(out_dir):
-    """Rate the bundled demo lamps of a fictional supplier and write the results."""
-    from .demo import demo_files
+    """Rate and check the bundled demo lamps of a fictional supplier and write the results.
+
+    The supplier, Quillfen Lighting, and its lamps are invented; their spectra are made
+    from physical models. Some of its claims are false on purpose.
+    """
+    from .demo import demo_claims, demo_files
 
     out = Path(out_dir)
     out.mkdir(parents=True, exist_ok=True)
     files = demo_files()
-    click.echo(f"Demo: {len(files)} spectrum files from the fictional supplier in lampcalc's spectra_demo/\n")
-    failed = rate_and_write(files, json_out=out / "ratings.json", csv_out=out / "ratings.csv")
-    if failed:
+    click.echo(f"Demo: {len(files)} spectrum files of a fictional supplier (lampcalc's spectra_demo/)\n")
+    if rate_and_write(files, json_out=out / "ratings.json", csv_out=out / "ratings.csv"):
         sys.exit(2)
+    click.echo(f"\nChecking the supplier's claims ({demo_claims().name}):\n")
+    status = check_and_write(
+        files, demo_claims(), json_out=out / "checks.json", csv_out=out / "checks.csv", quiet_table=True
+    )
+    if status == 2:
+        sys.exit(2)
+    click.echo(f"\nResults in {out}/")
 
 
 def main(argv=None):

@@ -17,3 +17,8 @@ def demo_files():
     return sorted(
         p for p in folder.iterdir() if p.suffix in SPECTRUM_SUFFIXES and not p.name.startswith(("claims", "."))
     )
+
+
+def demo_claims():
+    """The fictional supplier's claims file."""
+    return demo_folder() / "claims_quillfen.csv"

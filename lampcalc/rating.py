@@ -12,6 +12,7 @@ import json
 
 import numpy as np
 
+from .bins import EDITION, NOMINAL_CCTS_K, category, classify
 from .colorimetry import (
     XYZ_to_xy,
     luminous_efficacy_of_radiation,
@@ -28,6 +29,7 @@ from .rendering.cie224 import cie224_fidelity
 from .resampling import GRID_NM
 from .serialise import cell, plain
 from .spectra import SpectralBatch
+from .steps import steps_from_nominal
 
 #: Output fields in order: key -> description (with unit). Lists are noted as such.
 FIELDS = {
@@ -54,6 +56,14 @@ FIELDS = {
     "rf_hue_bins": "TM-30-18 local fidelity Rf,h1..Rf,h16 (list)",
     "chroma_shift_hue_bins_percent": "TM-30-18 local chroma shift Rcs,h1..Rcs,h16, % (list)",
     "hue_shift_hue_bins_rad": "TM-30-18 local hue shift Rhs,h1..Rhs,h16, radians (list)",
+    "ansi_edition": "edition of the nominal CCT categories: ANSI C78.377-2017",
+    "ansi_nominal_cct_K": "nominal CCT category whose quadrangle holds the lamp, K (null if none)",
+    "ansi_nearest_nominal_cct_K": "nominal CCT category whose quadrangle is nearest, K",
+    "ansi_margin_uv": "signed edge distance from that quadrangle in CIE 1960 u, v (positive inside)",
+    "ansi_delta_cct_K": "CCT minus the nearest category's target CCT, K",
+    "ansi_delta_duv": "Duv minus the nearest category's target Duv",
+    "sdcm_centre_nominal_cct_K": "nominal CCT whose centre the steps are counted from (claimed, else nearest category), K",
+    "sdcm_steps": "colour-consistency steps (IEC 60081 ellipses) from that centre",
     "ler_lm_per_W": "luminous efficacy of radiation over ler_range_nm, lm/W (not the lamp's efficacy)",
     "ler_range_nm": "[start, end] of the wavelengths LER is computed over, nm (list)",
     "luminous_flux_lm": "luminous flux, lm (spectra in W/nm only)",
@@ -139,7 +149,28 @@ def _rendering(values, cct):
     }
 
 
-def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear"):
+def _categories(xy, cct, duv, nominal):
+    """ANSI C78.377 category and colour-consistency columns."""
+    found = classify(xy)
+    nearest = found["nearest_nominal_cct_K"]
+    targets = {n: category(n) for n in NOMINAL_CCTS_K}
+    target_cct = np.array([targets[n].target_cct_K if np.isfinite(n) else np.nan for n in nearest])
+    target_duv = np.array([targets[n].target_duv if np.isfinite(n) else np.nan for n in nearest])
+    centre = np.where(np.isfinite(nominal), nominal, nearest)
+    steps, outside = steps_from_nominal(xy, centre)
+    return {
+        "ansi_edition": (EDITION,) * xy.shape[0],
+        "ansi_nominal_cct_K": found["nominal_cct_K"],
+        "ansi_nearest_nominal_cct_K": nearest,
+        "ansi_margin_uv": found["margin_uv"],
+        "ansi_delta_cct_K": cct - target_cct,
+        "ansi_delta_duv": duv - target_duv,
+        "sdcm_centre_nominal_cct_K": centre,
+        "sdcm_steps": steps,
+    }, outside
+
+
+def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear", nominal_cct_K=None):
     """Rate every lamp in one or more batches of spectra.
 
     Parameters
@@ -150,6 +181,9 @@ def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear"):
         Observer for the chromaticities.
     interpolation : {"linear", "sprague"}
         See :mod:`lampcalc.resampling`.
+    nominal_cct_K : array_like, shape (n_lamps,), optional
+        Claimed nominal CCT per lamp (NaN where none): the centre the colour-consistency
+        steps are counted from. Where not given, the nearest ANSI category's centre.
 
     Returns
     -------
@@ -162,6 +196,8 @@ def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear"):
     uv = xy_to_uv(xy)
     upvp = xy_to_upvp(xy)
     cct, duv, status = locate(uv, observer)
+    nominal = np.full(n, np.nan) if nominal_cct_K is None else np.asarray(nominal_cct_K, dtype=float).reshape(n)
+    categories, steps_outside = _categories(xy, cct, duv, nominal)
     lo, hi = batch.measured_range_nm[:, 0], batch.measured_range_nm[:, 1]
     cols = {
         "name": batch.names,
@@ -180,6 +216,7 @@ def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear"):
         "cct_K": cct,
         "duv": duv,
         **_rendering(values, cct),
+        **categories,
         "ler_lm_per_W": luminous_efficacy_of_radiation(values),
         "ler_range_nm": np.stack([np.maximum(lo, GRID_NM[0]), np.minimum(hi, GRID_NM[-1])], axis=1),
     }
@@ -202,6 +239,8 @@ def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear"):
     for i in range(n):
         if np.isfinite(batch.electrical_W[i]) and batch.quantity[i] != "flux":
             flags[i].append("efficacy_needs_flux_spectrum")
+        if steps_outside[i]:
+            flags[i].append("steps_metric_outside_iec_range")
         if not np.isfinite(cols["ra"][i]):
             flags[i].append("rendering_not_meaningful")
         elif cols["cri_dc"][i] > DC_LIMIT:
