@@ -6,14 +6,14 @@ through. The output repeats each input row with ``cct_K``, ``duv`` and ``flag`` 
 (``docs/cct.md``). Files of any length stream through in chunks of rows.
 """
 
+import contextlib
 import csv
 import json
-import os
-import tempfile
 from pathlib import Path
 
 import numpy as np
 
+from .atomic import atomic_path
 from .colorimetry import upvp_to_uv, xy_to_uv
 from .errors import InputError
 from .locus import locate, status_words
@@ -118,15 +118,13 @@ def iter_chunks(path, chunk_rows=100_000):
         yield header, kind, rows, np.array(coords).reshape(-1, 2), problems, 1.0
 
 
-class StreamWriter:
-    """Writes converted rows to CSV or JSON through a temporary file, renamed on success."""
+class RowWriter:
+    """Writes converted rows as CSV or JSON to an open text file."""
 
-    def __init__(self, path, form):
-        self.path = Path(path)
+    def __init__(self, handle, form):
+        self.handle = handle
         self.form = form
-        fd, self.tmp = tempfile.mkstemp(prefix=f".{self.path.name}.", suffix=".tmp", dir=self.path.parent)
-        self.handle = os.fdopen(fd, "w", newline="", encoding="utf-8")
-        self.csv = csv.writer(self.handle, lineterminator="\n") if form == "csv" else None
+        self.csv = csv.writer(handle, lineterminator="\n") if form == "csv" else None
         self.count = 0
         self.header = None
 
@@ -147,13 +145,18 @@ class StreamWriter:
                 self.handle.write(("," if self.count else "") + "\n " + json.dumps(record))
             self.count += 1
 
-    def close(self):
+    def finish(self):
         if self.form == "json":
-            self.handle.write("[" if self.header is None else "")
-            self.handle.write("\n]\n")
-        self.handle.close()
-        os.replace(self.tmp, self.path)
+            self.handle.write(("[" if self.header is None else "") + "\n]\n")
 
-    def abort(self):
-        self.handle.close()
-        Path(self.tmp).unlink(missing_ok=True)
+
+@contextlib.contextmanager
+def open_rows(path, form):
+    """A :class:`RowWriter` on ``path`` (``form`` "csv" or "json"), written atomically.
+
+    The file appears, complete, only when the ``with`` block ends without an error.
+    """
+    with atomic_path(path) as tmp, open(tmp, "w", newline="", encoding="utf-8") as handle:
+        writer = RowWriter(handle, form)
+        yield writer
+        writer.finish()

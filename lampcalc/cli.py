@@ -64,7 +64,7 @@ class _Quiet:
 
 
 def _write(path, text):
-    from .spectrum_files import write_atomic
+    from .atomic import write_atomic
 
     try:
         write_atomic(path, text)
@@ -189,6 +189,27 @@ def planck(temperatures, as_json, spectrum_out, quantity, per, wl_range):
         click.echo(f"wrote {spectrum_out}", err=True)
 
 
+def _convert_file(cf, csv_file, observer, writer, problems, shown):
+    """Stream a chromaticity CSV through the converter, with a progress bar on a terminal."""
+    import os
+
+    size = os.path.getsize(csv_file)
+    bar = click.progressbar(length=size, label="converting", file=sys.stderr) if sys.stderr.isatty() else None
+    done = 0
+    for header, kind, rows, coords, bad, fraction in cf.iter_chunks(csv_file):
+        c, d, flags = cf.convert(coords, kind, observer)
+        problems += bad
+        if writer:
+            writer.write(header, rows, c, d, flags)
+        else:
+            shown += [(", ".join(r), ci, di, f) for r, ci, di, f in zip(rows, c, d, flags)]
+        if bar:
+            bar.update(int(fraction * size) - done)
+            done = int(fraction * size)
+    if bar:
+        bar.render_finish()
+
+
 def _collect_files(paths, recursive):
     files = []
     for p in map(Path, paths):
@@ -265,7 +286,20 @@ _TABLE_NOTES = (
 )
 
 
-def rate_and_write(files, *, json_out=None, csv_out=None, strict=False, wavelength_unit=None, quantity=None):
+def _write_report(path, ratings, verdicts=None):
+    from .report import write_report
+
+    n_pages = len(ratings) + 2
+    if sys.stderr.isatty():
+        with click.progressbar(length=n_pages, label="writing report", file=sys.stderr) as bar:
+            pages = write_report(path, ratings, verdicts, progress=bar.update)
+    else:
+        pages = write_report(path, ratings, verdicts)
+    click.echo(f"wrote {path} ({pages} pages)", err=True)
+
+
+def rate_and_write(files, *, json_out=None, csv_out=None, report_out=None, strict=False, wavelength_unit=None,
+                   quantity=None):
     """Read, rate, print and write; returns the number of files that failed."""
     batches, errors = read_files(files, wavelength_unit=wavelength_unit, quantity=quantity, strict=strict)
     if batches:
@@ -278,6 +312,8 @@ def rate_and_write(files, *, json_out=None, csv_out=None, strict=False, waveleng
         if csv_out:
             _write(csv_out, ratings.to_csv())
             click.echo(f"wrote {csv_out}", err=True)
+        if report_out:
+            _write_report(report_out, ratings)
         click.echo(CAUTION)
     for message in errors:
         click.echo(f"lampcalc: {message}", err=True)
@@ -326,9 +362,10 @@ def _spectrum_options(fn):
 @click.argument("paths", nargs=-1, required=True, type=click.Path(exists=True), metavar="PATH...")
 @click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write every rating to this JSON file.")
 @click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write every rating to this CSV file.")
+@click.option("--report", "report_out", type=click.Path(dir_okay=False), help="Write a PDF report of every lamp.")
 @_spectrum_options
 @_fail_on_input_errors
-def rate(paths, json_out, csv_out, recursive, strict, wavelength_unit, quantity):
+def rate(paths, json_out, csv_out, report_out, recursive, strict, wavelength_unit, quantity):
     """Rate every spectrum in the files (and with -r, folders) given.
 
     Each file holds a wavelength column and one column per lamp (or lampcalc JSON).
@@ -338,7 +375,8 @@ def rate(paths, json_out, csv_out, recursive, strict, wavelength_unit, quantity)
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
     failed = rate_and_write(
-        files, json_out=json_out, csv_out=csv_out, strict=strict, wavelength_unit=wavelength_unit, quantity=quantity
+        files, json_out=json_out, csv_out=csv_out, report_out=report_out, strict=strict,
+        wavelength_unit=wavelength_unit, quantity=quantity,
     )
     if failed:
         sys.exit(2)
@@ -369,6 +407,8 @@ def cct(csv_file, xy, uv, upvp, csv_out, json_out, observer):
     (CIE 015:2018); Duv is the distance, positive above the locus. Outside 1000-100000 K
     there is no CCT; beyond |Duv| = 0.05 it is flagged.
     """
+    import contextlib
+
     from . import chromaticity_files as cf
 
     if csv_out and json_out:
@@ -378,27 +418,10 @@ def cct(csv_file, xy, uv, upvp, csv_out, json_out, observer):
     if not csv_file and not (xy or uv or upvp):
         raise Failure("nothing to convert: give a FILE.csv or points with --xy, --uv or --upvp")
     out_path, form = (csv_out, "csv") if csv_out else (json_out, "json") if json_out else (None, None)
-    writer = cf.StreamWriter(out_path, form) if out_path else None
     problems, shown = [], []
-    try:
+    with cf.open_rows(out_path, form) if out_path else contextlib.nullcontext() as writer:
         if csv_file:
-            import os
-
-            size = os.path.getsize(csv_file)
-            bar = click.progressbar(length=size, label="converting", file=sys.stderr) if sys.stderr.isatty() else None
-            done = 0
-            for header, kind, rows, coords, bad, fraction in cf.iter_chunks(csv_file):
-                c, d, flags = cf.convert(coords, kind, observer)
-                problems += bad
-                if writer:
-                    writer.write(header, rows, c, d, flags)
-                else:
-                    shown += [(", ".join(r), ci, di, f) for r, ci, di, f in zip(rows, c, d, flags)]
-                if bar:
-                    bar.update(int(fraction * size) - done)
-                    done = int(fraction * size)
-            if bar:
-                bar.render_finish()
+            _convert_file(cf, csv_file, observer, writer, problems, shown)
         else:
             import numpy as np
 
@@ -407,18 +430,11 @@ def cct(csv_file, xy, uv, upvp, csv_out, json_out, observer):
                     continue
                 kind = tuple(option.split(","))
                 c, d, flags = cf.convert(np.array(values, dtype=float), kind, observer)
-                header = list(kind)
-                rows = [[repr(a), repr(b)] for a, b in values]
                 if writer:
-                    writer.write(header, rows, c, d, flags)
-                shown += [(f"{option.replace('_prime', chr(39))} = {a:g}, {b:g}", ci, di, f)
-                          for (a, b), ci, di, f in zip(values, c, d, flags)]
-    except BaseException:
-        if writer:
-            writer.abort()
-        raise
+                    writer.write(list(kind), [[repr(a), repr(b)] for a, b in values], c, d, flags)
+                label = option.replace("_prime", "'")
+                shown += [(f"{label} = {a:g}, {b:g}", ci, di, f) for (a, b), ci, di, f in zip(values, c, d, flags)]
     if writer:
-        writer.close()
         click.echo(f"wrote {writer.count} rows to {out_path}", err=True)
     if shown:
         from .text_table import format_table
@@ -479,8 +495,8 @@ def _verdict_text(verdicts):
     return "\n\n".join(blocks)
 
 
-def check_and_write(files, claims_path, *, json_out=None, csv_out=None, strict=False, wavelength_unit=None,
-                    quantity=None, steps="ellipse", centre="ansi", quiet_table=False):
+def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_out=None, strict=False,
+                    wavelength_unit=None, quantity=None, steps="ellipse", centre="ansi", quiet_table=False):
     """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2)."""
     from .claims import check_claims, read_claims
 
@@ -504,6 +520,8 @@ def check_and_write(files, claims_path, *, json_out=None, csv_out=None, strict=F
     if csv_out:
         _write(csv_out, verdicts.to_csv())
         click.echo(f"wrote {csv_out}", err=True)
+    if report_out:
+        _write_report(report_out, ratings, verdicts)
     click.echo(CAUTION)
     if errors:
         click.echo(f"lampcalc: {len(errors)} of {len(files)} spectrum files could not be read", err=True)
@@ -519,6 +537,7 @@ def check_and_write(files, claims_path, *, json_out=None, csv_out=None, strict=F
 )
 @click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write the verdicts to this JSON file.")
 @click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write one row per check to this CSV file.")
+@click.option("--report", "report_out", type=click.Path(dir_okay=False), help="Write a PDF report with the verdicts.")
 @click.option(
     "--steps", type=click.Choice(["ellipse", "circle"]), default="ellipse", show_default=True,
     help="Colour-consistency steps: IEC 60081 ellipses or CIE TN 001 u'v' circles.",
@@ -529,7 +548,7 @@ def check_and_write(files, claims_path, *, json_out=None, csv_out=None, strict=F
 )
 @_spectrum_options
 @_fail_on_input_errors
-def check(paths, claims_path, json_out, csv_out, steps, centre, recursive, strict, wavelength_unit, quantity):
+def check(paths, claims_path, json_out, csv_out, report_out, steps, centre, recursive, strict, wavelength_unit, quantity):
     """Check a supplier's claims against the spectra: one verdict per claim.
 
     Exit status 0 when every claim holds, 1 when any does not (or cannot be shown to),
@@ -539,10 +558,48 @@ def check(paths, claims_path, json_out, csv_out, steps, centre, recursive, stric
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
     status = check_and_write(
-        files, claims_path, json_out=json_out, csv_out=csv_out, strict=strict,
+        files, claims_path, json_out=json_out, csv_out=csv_out, report_out=report_out, strict=strict,
         wavelength_unit=wavelength_unit, quantity=quantity, steps=steps, centre=centre,
     )
     sys.exit(status)
+
+
+@cli.command()
+@click.argument("kind", type=click.Choice(["locus", "spectrum", "efficacy", "hue"]))
+@click.argument("paths", nargs=-1, required=True, type=click.Path(exists=True), metavar="SPECTRA...")
+@click.option("-o", "--output", "out", required=True, type=click.Path(dir_okay=False),
+              help="Figure file: .png, .svg or .pdf.")
+@click.option("--lamp", "lamps", multiple=True, metavar="NAME", help="Lamp(s) to draw (repeatable; default all, or the first).")
+@click.option("--diagram", type=click.Choice(["xy", "upvp", "uv"]), default="xy", show_default=True,
+              help="Chromaticity diagram: CIE 1931 x,y; CIE 1976 u',v'; CIE 1960 u,v.")
+@click.option("--zoom", is_flag=True, help="Locus: the white region only.")
+@click.option("--duv-span", type=click.FloatRange(0.001, 0.1), default=0.02, show_default=True,
+              help="Locus: isotemperature lines from -SPAN to +SPAN in Duv.")
+@click.option("--ellipses-around", "nominal", type=float, default=None, metavar="NOMINAL_K",
+              help="Locus: colour-consistency ellipses (1-7 steps) around this nominal CCT's centre.")
+@_spectrum_options
+@_fail_on_input_errors
+def plot(kind, paths, out, lamps, diagram, zoom, duv_span, nominal, recursive, strict, wavelength_unit, quantity):
+    """Draw a figure of the lamps: locus, spectrum, efficacy or hue (TM-30 bins)."""
+    from .plots.figures import FIGURES
+    from .plots.style import figure_style, save_figure
+
+    files = _collect_files(paths, recursive)
+    batches, errors = read_files(files, wavelength_unit=wavelength_unit, quantity=quantity, strict=strict)
+    for message in errors:
+        click.echo(f"lampcalc: {message}", err=True)
+    if not batches:
+        raise Failure("no spectrum could be read")
+    ratings = _rate(batches)
+    options = {"locus": {"space": diagram, "zoom": zoom, "duv_span": duv_span, "nominal_cct_K": nominal}}.get(kind, {})
+    if kind in ("spectrum", "hue") and len(lamps) != 1 and len(ratings) > 1:
+        click.echo(f"drawing {lamps[0] if lamps else ratings['name'][0]}; choose another with --lamp NAME", err=True)
+    with figure_style():
+        fig = FIGURES[kind](ratings, lamps, **options)
+        save_figure(fig, out)
+    click.echo(f"wrote {out}", err=True)
+    if errors:
+        sys.exit(2)
 
 
 @cli.command()
@@ -571,11 +628,32 @@ def demo(out_dir):
         sys.exit(2)
     click.echo(f"\nChecking the supplier's claims ({demo_claims().name}):\n")
     status = check_and_write(
-        files, demo_claims(), json_out=out / "checks.json", csv_out=out / "checks.csv", quiet_table=True
+        files, demo_claims(), json_out=out / "checks.json", csv_out=out / "checks.csv",
+        report_out=out / "report.pdf", quiet_table=True,
     )
     if status == 2:
         sys.exit(2)
+    _demo_figures(files, out)
     click.echo(f"\nResults in {out}/")
+
+
+def _demo_figures(files, out):
+    from .plots.figures import FIGURES
+    from .plots.style import figure_style, save_figure
+
+    batches, _ = read_files(files)
+    ratings = _rate(batches)
+    jobs = [
+        ("locus_xy.png", "locus", (), {"space": "xy"}),
+        ("locus_white_upvp.png", "locus", (), {"space": "upvp", "zoom": True}),
+        ("spectrum_QF-A60-3000.png", "spectrum", ("QF-A60-3000",), {}),
+        ("hue_QF-RGB-5600.png", "hue", ("QF-RGB-5600",), {}),
+        ("efficacy.png", "efficacy", (), {}),
+    ]
+    with figure_style():
+        for name, kind, lamps, options in jobs:
+            save_figure(FIGURES[kind](ratings, lamps, **options), out / name)
+            click.echo(f"wrote {out / name}", err=True)
 
 
 def main(argv=None):

@@ -95,10 +95,13 @@ class Ratings:
 
     ``ratings[key]`` is the column (a NumPy array, or a tuple for strings and lists);
     :meth:`records` gives one dict per lamp with JSON-ready values (NaN → None).
+    ``extras`` keeps what figures need but files do not: the spectra on the grid
+    (``"batch"``) and the TM-30 bin means (``"ref_ab_bins"``, ``"test_ab_bins"``).
     """
 
-    def __init__(self, columns):
+    def __init__(self, columns, extras=None):
         self.columns = dict(columns)
+        self.extras = dict(extras or {})
 
     def __getitem__(self, key):
         return self.columns[key]
@@ -134,10 +137,10 @@ def _as_grid_batch(spectra, interpolation):
 
 
 def _rendering(values, cct):
-    """Colour rendering columns for the batch (CIE 13.3 and CIE 224 / TM-30-18)."""
+    """Colour rendering columns for the batch (CIE 13.3 and CIE 224 / TM-30-18), and the bin means."""
     cri = cie13_rendering(values, cct)
     fid = cie224_fidelity(values, cct)
-    return {
+    return fid, {
         "ra": cri["ra"],
         "ri": cri["ri"],
         "cri_dc": cri["dc"],
@@ -198,6 +201,7 @@ def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear", nomin
     cct, duv, status = locate(uv, observer)
     nominal = np.full(n, np.nan) if nominal_cct_K is None else np.asarray(nominal_cct_K, dtype=float).reshape(n)
     categories, steps_outside = _categories(xy, cct, duv, nominal)
+    fidelity, rendering = _rendering(values, cct)
     lo, hi = batch.measured_range_nm[:, 0], batch.measured_range_nm[:, 1]
     cols = {
         "name": batch.names,
@@ -215,7 +219,7 @@ def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear", nomin
         "v_prime": upvp[:, 1],
         "cct_K": cct,
         "duv": duv,
-        **_rendering(values, cct),
+        **rendering,
         **categories,
         "ler_lm_per_W": luminous_efficacy_of_radiation(values),
         "ler_range_nm": np.stack([np.maximum(lo, GRID_NM[0]), np.minimum(hi, GRID_NM[-1])], axis=1),
@@ -246,5 +250,6 @@ def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear", nomin
         elif cols["cri_dc"][i] > DC_LIMIT:
             flags[i].append("cri_outside_validity")
     cols["flags"] = tuple(tuple(f) for f in flags)
-    return Ratings(cols)
+    extras = {"batch": batch, "ref_ab_bins": fidelity["ref_ab_bins"], "test_ab_bins": fidelity["test_ab_bins"]}
+    return Ratings(cols, extras)
 

@@ -22,13 +22,12 @@ the line (1-based, as an editor counts) and the column.
 
 import json
 import math
-import os
 import re
-import tempfile
 from pathlib import Path
 
 import numpy as np
 
+from .atomic import write_atomic
 from .errors import InputError
 from .spectra import QUANTITY_UNITS, SpectralBatch
 
@@ -399,23 +398,6 @@ def read_spectra(path, *, wavelength_unit=None, quantity=None):
     if str(path).lower().endswith(".json"):
         return read_spectra_json(text, path, quantity=quantity)
     return read_spectra_text(text, path, wavelength_unit=wavelength_unit, quantity=quantity)
-
-
-def write_atomic(path, text):
-    """Write ``text`` to ``path`` through a temporary file and a rename.
-
-    A reader never sees a half-written file and an earlier file of that name survives
-    any failure before the rename.
-    """
-    path = Path(path)
-    fd, tmp = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".tmp", dir=path.parent or ".")
-    try:
-        with os.fdopen(fd, "w", encoding="utf-8", newline="") as handle:
-            handle.write(text)
-        os.replace(tmp, path)
-    except BaseException:
-        Path(tmp).unlink(missing_ok=True)
-        raise
 
 
 def _single_quantity(batch):
