@@ -298,6 +298,17 @@ def _write_report(path, ratings, verdicts=None):
     click.echo(f"wrote {path} ({pages} pages)", err=True)
 
 
+def _write_outputs(ratings, verdicts, json_out, csv_out, report_out):
+    """The files a command was asked for: JSON and CSV of the verdicts (else the ratings), the report."""
+    table = verdicts or ratings
+    for path, text in ((json_out, table.to_json), (csv_out, table.to_csv)):
+        if path:
+            _write(path, text())
+            click.echo(f"wrote {path}", err=True)
+    if report_out:
+        _write_report(report_out, ratings, verdicts)
+
+
 def rate_and_write(files, *, json_out=None, csv_out=None, report_out=None, strict=False, wavelength_unit=None,
                    quantity=None):
     """Read, rate, print and write; returns the number of files that failed."""
@@ -306,14 +317,7 @@ def rate_and_write(files, *, json_out=None, csv_out=None, report_out=None, stric
         ratings = _rate(batches)
         click.echo(_rating_table(ratings))
         click.echo(_TABLE_NOTES)
-        if json_out:
-            _write(json_out, ratings.to_json())
-            click.echo(f"wrote {json_out}", err=True)
-        if csv_out:
-            _write(csv_out, ratings.to_csv())
-            click.echo(f"wrote {csv_out}", err=True)
-        if report_out:
-            _write_report(report_out, ratings)
+        _write_outputs(ratings, None, json_out, csv_out, report_out)
         click.echo(CAUTION)
     for message in errors:
         click.echo(f"lampcalc: {message}", err=True)
@@ -514,14 +518,7 @@ def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_o
         click.echo(_TABLE_NOTES + "\n")
     click.echo(_verdict_text(verdicts))
     click.echo("\n" + verdicts.summary())
-    if json_out:
-        _write(json_out, verdicts.to_json())
-        click.echo(f"wrote {json_out}", err=True)
-    if csv_out:
-        _write(csv_out, verdicts.to_csv())
-        click.echo(f"wrote {csv_out}", err=True)
-    if report_out:
-        _write_report(report_out, ratings, verdicts)
+    _write_outputs(ratings, verdicts, json_out, csv_out, report_out)
     click.echo(CAUTION)
     if errors:
         click.echo(f"lampcalc: {len(errors)} of {len(files)} spectrum files could not be read", err=True)
