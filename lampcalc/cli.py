@@ -10,11 +10,7 @@ from pathlib import Path
 
 import click
 
-CAUTION = (
-    "Computed from the spectra supplied: not a photometric test report and not a "
-    "photobiological safety assessment (IEC 62471). Local codes and licensed practice "
-    "govern lighting design decisions."
-)
+from .caution import CAUTION
 
 SPECTRUM_SUFFIXES = (".csv", ".tsv", ".txt", ".dat", ".json")
 
@@ -29,7 +25,7 @@ class Failure(click.ClickException):
 
 
 def _fail_on_input_errors(fn):
-    """Turn library InputError/ValueError raised by a command into a one-line Failure."""
+    """Turn an InputError raised by a command into a one-line Failure (exit status 2)."""
     import functools
 
     @functools.wraps(fn)
@@ -38,7 +34,7 @@ def _fail_on_input_errors(fn):
 
         try:
             return fn(*args, **kwargs)
-        except (InputError, ValueError) as err:
+        except InputError as err:
             raise Failure(str(err)) from None
 
     return wrapper
@@ -222,8 +218,8 @@ def _collect_files(paths, recursive):
     return files
 
 
-def read_files(files, *, wavelength_unit=None, quantity=None, strict=False):
-    """Read every file; returns ``(batches, errors)``. ``strict`` stops at the first error."""
+def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, interpolation="linear"):
+    """Read every file onto the grid; returns ``(batches, errors)``. ``strict`` stops at the first error."""
     from .errors import InputError
     from .spectrum_files import read_spectra
 
@@ -232,7 +228,7 @@ def read_files(files, *, wavelength_unit=None, quantity=None, strict=False):
         for f in bar:
             try:
                 batch = read_spectra(f, wavelength_unit=wavelength_unit, quantity=quantity)
-                batches.append(batch.on_grid())
+                batches.append(batch.on_grid(interpolation))
             except InputError as err:
                 if strict:
                     raise Failure(str(err)) from None
@@ -309,10 +305,9 @@ def _write_outputs(ratings, verdicts, json_out, csv_out, report_out):
         _write_report(report_out, ratings, verdicts)
 
 
-def rate_and_write(files, *, json_out=None, csv_out=None, report_out=None, strict=False, wavelength_unit=None,
-                   quantity=None):
-    """Read, rate, print and write; returns the number of files that failed."""
-    batches, errors = read_files(files, wavelength_unit=wavelength_unit, quantity=quantity, strict=strict)
+def rate_and_write(files, *, json_out=None, csv_out=None, report_out=None, **reading):
+    """Read, rate, print and write; returns the number of files that failed. ``reading``: see read_files."""
+    batches, errors = read_files(files, **reading)
     if batches:
         ratings = _rate(batches)
         click.echo(_rating_table(ratings))
@@ -356,6 +351,13 @@ def _spectrum_options(fn):
                 default=None,
                 help="Radiometric quantity of the spectra (default: what the file says, else relative).",
             ),
+            click.option(
+                "--interpolation",
+                type=click.Choice(["linear", "sprague"]),
+                default="linear",
+                show_default=True,
+                help="Resampling to 1 nm: linear (measured spectra) or Sprague (uniform, smooth data; CIE 167).",
+            ),
         ]
     ):
         fn = option(fn)
@@ -369,7 +371,7 @@ def _spectrum_options(fn):
 @click.option("--report", "report_out", type=click.Path(dir_okay=False), help="Write a PDF report of every lamp.")
 @_spectrum_options
 @_fail_on_input_errors
-def rate(paths, json_out, csv_out, report_out, recursive, strict, wavelength_unit, quantity):
+def rate(paths, json_out, csv_out, report_out, recursive, **reading):
     """Rate every spectrum in the files (and with -r, folders) given.
 
     Each file holds a wavelength column and one column per lamp (or lampcalc JSON).
@@ -378,10 +380,7 @@ def rate(paths, json_out, csv_out, report_out, recursive, strict, wavelength_uni
     files = _collect_files(paths, recursive)
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
-    failed = rate_and_write(
-        files, json_out=json_out, csv_out=csv_out, report_out=report_out, strict=strict,
-        wavelength_unit=wavelength_unit, quantity=quantity,
-    )
+    failed = rate_and_write(files, json_out=json_out, csv_out=csv_out, report_out=report_out, **reading)
     if failed:
         sys.exit(2)
 
@@ -499,13 +498,13 @@ def _verdict_text(verdicts):
     return "\n\n".join(blocks)
 
 
-def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_out=None, strict=False,
-                    wavelength_unit=None, quantity=None, steps="ellipse", centre="ansi", quiet_table=False):
+def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_out=None, steps="ellipse",
+                    centre="ansi", quiet_table=False, **reading):
     """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2)."""
     from .claims import check_claims, read_claims
 
     claims = read_claims(claims_path)
-    batches, errors = read_files(files, wavelength_unit=wavelength_unit, quantity=quantity, strict=strict)
+    batches, errors = read_files(files, **reading)
     for message in errors:
         click.echo(f"lampcalc: {message}", err=True)
     if not batches:
@@ -545,7 +544,7 @@ def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_o
 )
 @_spectrum_options
 @_fail_on_input_errors
-def check(paths, claims_path, json_out, csv_out, report_out, steps, centre, recursive, strict, wavelength_unit, quantity):
+def check(paths, claims_path, json_out, csv_out, report_out, steps, centre, recursive, **reading):
     """Check a supplier's claims against the spectra: one verdict per claim.
 
     Exit status 0 when every claim holds, 1 when any does not (or cannot be shown to),
@@ -555,8 +554,8 @@ def check(paths, claims_path, json_out, csv_out, report_out, steps, centre, recu
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
     status = check_and_write(
-        files, claims_path, json_out=json_out, csv_out=csv_out, report_out=report_out, strict=strict,
-        wavelength_unit=wavelength_unit, quantity=quantity, steps=steps, centre=centre,
+        files, claims_path, json_out=json_out, csv_out=csv_out, report_out=report_out, steps=steps, centre=centre,
+        **reading,
     )
     sys.exit(status)
 
@@ -576,13 +575,13 @@ def check(paths, claims_path, json_out, csv_out, report_out, steps, centre, recu
               help="Locus: colour-consistency ellipses (1-7 steps) around this nominal CCT's centre.")
 @_spectrum_options
 @_fail_on_input_errors
-def plot(kind, paths, out, lamps, diagram, zoom, duv_span, nominal, recursive, strict, wavelength_unit, quantity):
+def plot(kind, paths, out, lamps, diagram, zoom, duv_span, nominal, recursive, **reading):
     """Draw a figure of the lamps: locus, spectrum, efficacy or hue (TM-30 bins)."""
     from .plots.figures import FIGURES
     from .plots.style import figure_style, save_figure
 
     files = _collect_files(paths, recursive)
-    batches, errors = read_files(files, wavelength_unit=wavelength_unit, quantity=quantity, strict=strict)
+    batches, errors = read_files(files, **reading)
     for message in errors:
         click.echo(f"lampcalc: {message}", err=True)
     if not batches:

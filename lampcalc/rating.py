@@ -159,7 +159,8 @@ def _categories(xy, cct, duv, nominal):
     targets = {n: category(n) for n in NOMINAL_CCTS_K}
     target_cct = np.array([targets[n].target_cct_K if np.isfinite(n) else np.nan for n in nearest])
     target_duv = np.array([targets[n].target_duv if np.isfinite(n) else np.nan for n in nearest])
-    centre = np.where(np.isfinite(nominal), nominal, nearest)
+    # Steps from the claimed nominal CCT, else the nearest category; none for a non-white source.
+    centre = np.where(np.isfinite(nominal), nominal, np.where(np.isfinite(cct), nearest, np.nan))
     steps, outside = steps_from_nominal(xy, centre)
     return {
         "ansi_edition": (EDITION,) * xy.shape[0],
@@ -181,7 +182,9 @@ def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear", nomin
     spectra : SpectralBatch or sequence of SpectralBatch
         Spectra as read, on any grid; they are resampled onto 360–830 nm at 1 nm.
     observer : {"1931_2deg", "1964_10deg"}
-        Observer for the chromaticities.
+        Observer for the reported chromaticities, CCT and Duv. The ANSI categories, the
+        steps and CIE 13.3 are defined with the 2° observer and always use it (CIE 224 its
+        10° observer).
     interpolation : {"linear", "sprague"}
         See :mod:`lampcalc.resampling`.
     nominal_cct_K : array_like, shape (n_lamps,), optional
@@ -199,9 +202,14 @@ def rate_spectra(spectra, *, observer="1931_2deg", interpolation="linear", nomin
     uv = xy_to_uv(xy)
     upvp = xy_to_upvp(xy)
     cct, duv, status = locate(uv, observer)
+    if observer == "1931_2deg":
+        xy2, cct2, duv2 = xy, cct, duv
+    else:
+        xy2 = XYZ_to_xy(tristimulus(values))
+        cct2, duv2, _ = locate(xy_to_uv(xy2))
     nominal = np.full(n, np.nan) if nominal_cct_K is None else np.asarray(nominal_cct_K, dtype=float).reshape(n)
-    categories, steps_outside = _categories(xy, cct, duv, nominal)
-    fidelity, rendering = _rendering(values, cct)
+    categories, steps_outside = _categories(xy2, cct2, duv2, nominal)
+    fidelity, rendering = _rendering(values, cct2)
     lo, hi = batch.measured_range_nm[:, 0], batch.measured_range_nm[:, 1]
     cols = {
         "name": batch.names,

@@ -20,17 +20,13 @@ import numpy as np
 
 from . import __version__
 from .bins import EDITION
+from .caution import CAUTION
 from .plots.diagram import draw_chromaticity_diagram
 from .plots.hue import draw_hue_bars, draw_hue_graphic
 from .plots.spectrum import draw_spectrum
 from .plots.style import A4_PORTRAIT_IN, INK, LAMP, MUTED, figure_style, new_figure
 
 LAMPS_PER_SUMMARY_PAGE = 28
-CAUTION = (
-    "The ratings are computed from the spectra supplied. They are not a photometric test report and not a "
-    "photobiological safety assessment (IEC 62471). Local codes and licensed practice govern lighting design "
-    "decisions."
-)
 
 METHODS = [
     ("Grid and sums", "CIE 015:2018: 360–830 nm at 1 nm; every weighted integral is Σ S(λ)·w(λ)·Δλ. Spectra are "

@@ -22,6 +22,7 @@ that as one possible target, not as legal advice.
 import numpy as np
 
 from .bins import category
+from .errors import InputError
 from .colorimetry import xy_to_upvp
 
 #: IEC 60081 Annex D colour centres: CCT -> ((x, y), (g11, g12, g22) in units of 1e4). From memory.
@@ -73,7 +74,10 @@ def centre_xy(nominal_cct_K, centre="ansi"):
     if centre == "iec":
         key = round(float(nominal_cct_K))
         if key not in IEC_60081_ELLIPSES or key != float(nominal_cct_K):
-            raise ValueError(f"IEC 60081 has no colour centre for {float(nominal_cct_K):g} K; use centre='ansi'")
+            raise InputError(
+                f"IEC 60081 has no colour centre for {float(nominal_cct_K):g} K (only 2700, 3000, 3500, 4000, "
+                "5000, 6500 K); use the ANSI centre"
+            )
         return np.array(IEC_60081_ELLIPSES[key][0])
     raise ValueError(f"unknown centre {centre!r}; choose one of {', '.join(CENTRES)}")
 

@@ -89,3 +89,20 @@ def test_records_are_json_ready_and_documented():
         assert f"`{key}`" in doc, f"{key} is not documented in docs/output-fields.md"
     header = r.to_csv().splitlines()[0].split(",")
     assert header == [k for k in FIELDS if k in r.columns]
+
+
+def test_non_white_source_has_no_steps_or_category():
+    # A red LED is no white light: no ANSI category and no colour-consistency steps are given.
+    r = rate_spectra(_batch(_led(630, 10), ("red",)))
+    assert np.isnan(r["ansi_nominal_cct_K"][0]) and np.isnan(r["sdcm_steps"][0])
+    assert "steps_metric_outside_iec_range" not in r["flags"][0]
+
+
+def test_ten_degree_observer_changes_chromaticity_not_the_2_degree_methods():
+    # CIE 13.3 and ANSI C78.377 are defined with the CIE 1931 2° observer whatever is reported.
+    values = _white_led()
+    two = rate_spectra(_batch(values, ("w",)))
+    ten = rate_spectra(_batch(values, ("w",)), observer="1964_10deg")
+    assert ten["x"][0] != two["x"][0] and ten["cct_K"][0] != two["cct_K"][0]
+    for key in ("ra", "rf", "sdcm_steps", "ansi_nominal_cct_K", "ansi_delta_cct_K"):
+        np.testing.assert_array_equal(ten[key], two[key], err_msg=key)

@@ -5,6 +5,7 @@ import pytest
 
 from lampcalc import steps
 from lampcalc.colorimetry import upvp_to_xy, xy_to_upvp
+from lampcalc.errors import InputError
 
 
 def _axes(g):
@@ -61,7 +62,7 @@ def test_ansi_centre_and_bad_choices():
     from lampcalc.bins import category
 
     np.testing.assert_allclose(steps.centre_xy(3000), category(3000).centre_xy)
-    with pytest.raises(ValueError, match="no colour centre for 3200 K"):
+    with pytest.raises(InputError, match="no colour centre for 3200 K"):
         steps.centre_xy(3200, "iec")
     with pytest.raises(ValueError, match="ansi, iec"):
         steps.centre_xy(3000, "cie")
