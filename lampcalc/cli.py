@@ -218,8 +218,11 @@ def _collect_files(paths, recursive):
     return files
 
 
-def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, interpolation="linear"):
-    """Read every file onto the grid; returns ``(batches, errors)``. ``strict`` stops at the first error."""
+def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, interpolation="linear", watts=None):
+    """Read every file onto the grid; returns ``(batches, errors)``. ``strict`` stops at the first error.
+
+    ``watts`` is the electrical power of every lamp whose file does not give one.
+    """
     from .errors import InputError
     from .spectrum_files import read_spectra
 
@@ -228,6 +231,8 @@ def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, inte
         for f in bar:
             try:
                 batch = read_spectra(f, wavelength_unit=wavelength_unit, quantity=quantity)
+                if watts is not None:
+                    batch = batch.with_electrical_power(watts)
                 batches.append(batch.on_grid(interpolation))
             except InputError as err:
                 if strict:
@@ -350,6 +355,13 @@ def _spectrum_options(fn):
                 type=click.Choice(["relative", "flux", "irradiance", "radiance"]),
                 default=None,
                 help="Radiometric quantity of the spectra (default: what the file says, else relative).",
+            ),
+            click.option(
+                "--watts",
+                type=click.FloatRange(min=0, min_open=True),
+                default=None,
+                metavar="W",
+                help="Electrical power of every lamp whose file gives none, W (for lamp efficacy).",
             ),
             click.option(
                 "--interpolation",

@@ -159,6 +159,10 @@ class SpectralBatch:
         )
         return replace(self, wavelength_nm=GRID_NM, values=values, flags=flags)
 
+    def with_electrical_power(self, watts):
+        """This batch with ``watts`` as the electrical power of every lamp that has none."""
+        return replace(self, electrical_W=np.where(np.isfinite(self.electrical_W), self.electrical_W, float(watts)))
+
     def _where(self, i):
         return self.sources[i] or self.names[i]
 

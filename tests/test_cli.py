@@ -251,3 +251,16 @@ def test_rate_sprague_option(run, write, tmp_path):
     linear_cct = json.loads(out_l.read_text())[0]["cct_K"]
     assert sprague_cct == pytest.approx(6500, abs=10)
     assert linear_cct < sprague_cct - 3
+
+
+def test_watts_option_gives_lamp_efficacy(run, write, tmp_path):
+    # Lamp efficacy = luminous flux / electrical power (PITFALLS: never confuse it with LER).
+    line = "\n".join(f"{w},{0.01 if w == 555 else 0}" for w in range(380, 781))
+    path = write("abs.csv", "# quantity: flux\nnm,lamp\n" + line)
+    out = tmp_path / "r.json"
+    assert run("rate", path, "--watts", "4", "--json", out).exit_code == 0
+    r = json.loads(out.read_text())[0]
+    assert r["electrical_W"] == 4.0
+    assert r["efficacy_lm_per_W"] == pytest.approx(r["luminous_flux_lm"] / 4.0)
+    assert r["luminous_flux_lm"] == pytest.approx(683 * 0.01, rel=1e-3)  # Km = 683 lm/W at 555 nm
+    assert run("rate", path, "--watts", "0").exit_code == 2
