@@ -151,8 +151,8 @@ def _lamp_page(pdf, ratings, i, verdict):
                               around_xy=(r["x"], r["y"]), half_width=0.03,
                               title=f"CIE 1931 (x, y); ellipses 1–7 steps around {_fmt(nominal, '.0f')} K")
     sax = fig.add_axes([0.09, 0.43, 0.86, 0.19])
-    values = ratings.extras["batch"].values[i]
-    draw_spectrum(sax, values, cct_K=r["cct_K"] if r["cct_K"] is not None else None, name=r["name"])
+    batch = ratings.extras["batch"]
+    draw_spectrum(sax, batch.values[i], cct_K=r["cct_K"], name=r["name"], measured_range_nm=batch.measured_range_nm[i])
     ref, test = ratings.extras["ref_ab_bins"][i], ratings.extras["test_ab_bins"][i]
     if np.all(np.isfinite(ref)) and np.all(np.isfinite(test)):
         hax = fig.add_axes([0.06, 0.17, 0.36, 0.22])

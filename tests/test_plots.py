@@ -120,3 +120,19 @@ def test_plot_command_bad_lamp_and_no_reference(run, write, tmp_path):
     red = write("red.csv", "\n".join(f"{w},{np.exp(-((w - 630) / 10) ** 2):.6f}" for w in range(380, 781)))
     result = run("plot", "hue", red, "-o", tmp_path / "h.png")
     assert result.exit_code == 2 and "no TM-30 hue bins" in result.stderr
+
+
+def test_locus_figure_marks_the_computed_chromaticities():
+    import lampcalc
+    from lampcalc.demo import demo_files
+    from lampcalc.plots.figures import locus_figure
+
+    ratings = lampcalc.rate_spectra([lampcalc.read_spectra(f) for f in demo_files()])
+    with figure_style():
+        fig = locus_figure(ratings, space="upvp", zoom=True)
+    markers = _by_gid(fig.axes[0], "lamp:")
+    assert len(markers) == len(ratings)
+    for i, name in enumerate(ratings["name"]):
+        np.testing.assert_allclose(
+            _xy_data(markers[f"lamp:{name}"])[0], [ratings["u_prime"][i], ratings["v_prime"][i]], atol=1e-12
+        )

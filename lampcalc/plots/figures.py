@@ -43,8 +43,9 @@ def spectrum_figure(ratings, lamps=(), v_lambda=True, melanopic=True):
     (i,) = _select(ratings, lamps, single=True)
     fig = new_figure((6.3, 3.8))
     ax = fig.add_subplot()
-    draw_spectrum(ax, ratings.extras["batch"].values[i], cct_K=ratings["cct_K"][i], name=ratings["name"][i],
-                  v_lambda=v_lambda, melanopic=melanopic)
+    batch = ratings.extras["batch"]
+    draw_spectrum(ax, batch.values[i], cct_K=ratings["cct_K"][i], name=ratings["name"][i],
+                  measured_range_nm=batch.measured_range_nm[i], v_lambda=v_lambda, melanopic=melanopic)
     ax.set_title(f"{ratings['name'][i]}: spectrum and reference", loc="left")
     return fig
 

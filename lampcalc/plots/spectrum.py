@@ -26,7 +26,7 @@ def spectral_band_rgb(wavelength_nm):
     return np.where(rgb <= 0.0031308, 12.92 * rgb, 1.055 * rgb ** (1 / 2.4) - 0.055)
 
 
-def draw_spectrum(ax, values, *, cct_K=None, name="", v_lambda=True, melanopic=True, band=True):
+def draw_spectrum(ax, values, *, cct_K=None, name="", measured_range_nm=None, v_lambda=True, melanopic=True, band=True):
     """Relative spectrum of one lamp on the grid, with the reference illuminant at its CCT.
 
     Parameters
@@ -37,11 +37,16 @@ def draw_spectrum(ax, values, *, cct_K=None, name="", v_lambda=True, melanopic=T
     cct_K : float, optional
         The lamp's CCT: draws the CIE 224 reference (Planckian below 4000 K, daylight above
         5000 K, a mixture between) at equal luminance. Omitted when NaN or None.
+    measured_range_nm : (float, float), optional
+        The lamp is drawn only where it was measured (outside, lampcalc's zeros are no data).
     """
     values = np.asarray(values, dtype=float)
     ybar = luminous_efficiency()
     scale = values.max()
-    ax.plot(GRID_NM, values / scale, color=LAMP, lw=1.1, label=name or "lamp", gid="lamp_spectrum")
+    shown = values / scale
+    if measured_range_nm is not None:
+        shown = np.where((GRID_NM >= measured_range_nm[0]) & (GRID_NM <= measured_range_nm[1]), shown, np.nan)
+    ax.plot(GRID_NM, shown, color=LAMP, lw=1.1, label=name or "lamp", gid="lamp_spectrum")
     if cct_K is not None and np.isfinite(cct_K):
         ref = reference_cie224([cct_K])[0]
         if np.all(np.isfinite(ref)):
