@@ -71,6 +71,15 @@ _EXPORTS = {
     "alpha_opic_elr": "photoreceptors",
     "alpha_opic_der": "photoreceptors",
     "melanopic_edi_lx": "photoreceptors",
+    "category": "bins",
+    "classify": "bins",
+    "quadrangle_margin": "bins",
+    "steps_from_nominal": "steps",
+    "ellipse_steps": "steps",
+    "circle_steps": "steps",
+    "read_claims": "claims",
+    "check_claims": "claims",
+    "write_report": "report",
 }
 
 __all__ = sorted(_EXPORTS)

@@ -3,7 +3,7 @@
 from importlib import resources
 from pathlib import Path
 
-SPECTRUM_SUFFIXES = (".csv", ".tsv", ".txt", ".json")
+from .cli import SPECTRUM_SUFFIXES
 
 
 def demo_folder():

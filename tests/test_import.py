@@ -46,3 +46,17 @@ def test_every_public_name_resolves(name):
 def test_unknown_attribute():
     with pytest.raises(AttributeError, match="no attribute 'nope'"):
         lampcalc.nope  # noqa: B018
+
+
+def test_every_subpackage_ships():
+    # A wheel built from pyproject.toml's explicit package list must hold every subpackage.
+    import re
+    from pathlib import Path
+
+    root = Path(__file__).resolve().parents[1]
+    listed = set(re.search(r"^packages = \[(.*)\]", (root / "pyproject.toml").read_text(), re.M).group(1).replace('"', "").split(", "))
+    found = {"lampcalc"} | {
+        "lampcalc." + p.parent.relative_to(root / "lampcalc").as_posix().replace("/", ".")
+        for p in (root / "lampcalc").glob("*/__init__.py")
+    }
+    assert found | {"lampcalc.spectra_demo"} == listed
