@@ -71,15 +71,16 @@ def _summary_rows(records, verdicts):
     return rows
 
 
-def _table(ax, headers, rows, col_widths=None, fontsize=6.8):
+def _table(ax, headers, rows, col_widths=None, fontsize=6.8, max_rows=None):
+    """A table filling the top of ``ax``: ``max_rows`` rows (and the header) fill its height."""
     ax.set_axis_off()
     if not rows:
         return
-    table = ax.table(cellText=rows, colLabels=headers, loc="upper left", cellLoc="right", colLoc="right",
-                     colWidths=col_widths, edges="horizontal")
+    share = min(1.0, (len(rows) + 1) / ((max_rows or len(rows)) + 1))
+    table = ax.table(cellText=rows, colLabels=headers, cellLoc="right", colLoc="right",
+                     colWidths=col_widths, edges="horizontal", bbox=[0.0, 1.0 - share, 1.0, share])
     table.auto_set_font_size(False)
     table.set_fontsize(fontsize)
-    table.scale(1.0, 1.25)
     for (row, col), cell in table.get_celld().items():
         cell.set_edgecolor("#cbd2d9")
         cell.set_linewidth(0.4)
@@ -103,7 +104,7 @@ def _summary_page(pdf, records, verdicts, page_lamps, title, page_no, n_pages):
     headers = ["lamp", "CCT K", "Duv", "ANSI", "steps", "Ra", "R9", "Rf", "Rg", "LER", "S/P", "mel-DER", "claims"]
     ax = fig.add_axes([0.06, 0.50, 0.88, 0.43])
     widths = [0.20, 0.07, 0.08, 0.06, 0.06, 0.06, 0.06, 0.06, 0.06, 0.06, 0.06, 0.07, 0.08]
-    _table(ax, headers, _summary_rows(page_lamps, verdicts), widths)
+    _table(ax, headers, _summary_rows(page_lamps, verdicts), widths, max_rows=LAMPS_PER_SUMMARY_PAGE)
     flagged = [f"{r['name']}: {', '.join(r['flags'])}" for r in page_lamps if r["flags"]]
     note = ("Flags — " + "; ".join(flagged)) if flagged else "No flags."
     fig.text(0.06, 0.485, note, fontsize=6.3, color=INK, wrap=True, va="top")
@@ -150,22 +151,23 @@ def _lamp_page(pdf, ratings, i, verdict):
     draw_chromaticity_diagram(dax, [(r["name"], (r["x"], r["y"]))], zoom=True, nominal_cct_K=nominal,
                               around_xy=(r["x"], r["y"]), half_width=0.03,
                               title=f"CIE 1931 (x, y); ellipses 1–7 steps around {_fmt(nominal, '.0f')} K")
-    sax = fig.add_axes([0.09, 0.43, 0.86, 0.19])
+    sax = fig.add_axes([0.09, 0.465, 0.86, 0.165])
     batch = ratings.extras["batch"]
     draw_spectrum(sax, batch.values[i], cct_K=r["cct_K"], name=r["name"], measured_range_nm=batch.measured_range_nm[i])
     ref, test = ratings.extras["ref_ab_bins"][i], ratings.extras["test_ab_bins"][i]
     if np.all(np.isfinite(ref)) and np.all(np.isfinite(test)):
-        hax = fig.add_axes([0.06, 0.17, 0.36, 0.22])
+        hax = fig.add_axes([0.06, 0.235, 0.36, 0.19])
         draw_hue_graphic(hax, ref, test)
-        draw_hue_bars(fig.add_axes([0.52, 0.29, 0.43, 0.10]), fig.add_axes([0.52, 0.17, 0.43, 0.10]),
+        draw_hue_bars(fig.add_axes([0.52, 0.345, 0.43, 0.08]), fig.add_axes([0.52, 0.245, 0.43, 0.08]),
                       r["chroma_shift_hue_bins_percent"], r["hue_shift_hue_bins_rad"])
     else:
         fig.text(0.06, 0.30, "No TM-30 hue-bin graphic: no reference illuminant for this lamp.", fontsize=8, color=LAMP)
-    cax = fig.add_axes([0.06, 0.045, 0.88, 0.10])
+    cax = fig.add_axes([0.06, 0.05, 0.88, 0.145])
     if verdict:
         rows = [[c["criterion"], _fmt(c["claimed"], ".4g"), _fmt(c["measured"], ".4g"), _fmt(c["margin"], "+.3g"),
                  {True: "holds", False: "FAILS", None: "not shown"}[c["pass"]]] for c in verdict["checks"]]
-        _table(cax, ["claim", "claimed", "measured", "margin", "result"], rows, [0.3, 0.15, 0.15, 0.15, 0.15], 6.5)
+        _table(cax, ["claim", "claimed", "measured", "margin", "result"], rows, [0.3, 0.15, 0.15, 0.15, 0.15], 6.3,
+               max_rows=11)
     else:
         cax.set_axis_off()
         cax.text(0, 0.8, "No claims checked for this lamp.", fontsize=7, color=MUTED)
