@@ -9,6 +9,7 @@ through. The output repeats each input row with ``cct_K``, ``duv`` and ``flag`` 
 import contextlib
 import csv
 import json
+import math
 from pathlib import Path
 
 import numpy as np
@@ -36,7 +37,8 @@ def flag_text(status):
 def convert(coords, kind, observer="1931_2deg"):
     """CCT, Duv and flag text for an ``(n, 2)`` array of coordinates of a kind in COORDINATE_COLUMNS."""
     cct, duv, status = locate(COORDINATE_COLUMNS[kind](coords), observer)
-    return cct, duv, [flag_text(s) for s in status]
+    text = {code: flag_text(code) for code in np.unique(status).tolist()}
+    return cct, duv, [text[code] for code in status.tolist()]
 
 
 def _find_columns(header, path):
@@ -95,21 +97,21 @@ def iter_chunks(path, chunk_rows=100_000):
             except (UnicodeDecodeError, csv.Error) as err:
                 raise InputError(f"{path}, line {line + 1}: cannot be read ({err})") from None
             line = reader.line_num
-            if not any(cell.strip() for cell in row):
+            if not "".join(row).strip():
                 continue
-            pair = [np.nan, np.nan]
+            pair = [math.nan, math.nan]
             if len(row) != len(header):
                 problems.append(f"{path}, line {line}: {len(row)} fields where the header has {len(header)}")
             else:
                 try:
                     pair = [float(row[iu]), float(row[iv])]
-                    if not all(np.isfinite(pair)):
+                    if not (math.isfinite(pair[0]) and math.isfinite(pair[1])):
                         raise ValueError
                 except ValueError:
                     problems.append(
                         f"{path}, line {line}: {kind[0]}, {kind[1]} = {row[iu]!r}, {row[iv]!r} are not two finite numbers"
                     )
-                    pair = [np.nan, np.nan]
+                    pair = [math.nan, math.nan]
             rows.append(row)
             coords.append(pair)
             if len(rows) >= chunk_rows:
@@ -135,14 +137,15 @@ class RowWriter:
                 self.csv.writerow(self.header)
             else:
                 self.handle.write("[")
+        cct, duv = [plain(v) for v in np.asarray(cct).tolist()], [plain(v) for v in np.asarray(duv).tolist()]
+        if self.csv:
+            self.csv.writerows(row + [cell(c), cell(d), f] for row, c, d, f in zip(rows, cct, duv, flags))
+            self.count += len(rows)
+            return
         for row, c, d, f in zip(rows, cct, duv, flags):
-            extra = [plain(c), plain(d), f]
-            if self.csv:
-                self.csv.writerow(list(row) + [cell(v) for v in extra])
-            else:
-                record = dict(zip(header, row))
-                record.update(zip(OUTPUT_COLUMNS, extra))
-                self.handle.write(("," if self.count else "") + "\n " + json.dumps(record))
+            record = dict(zip(header, row))
+            record.update(zip(OUTPUT_COLUMNS, (c, d, f)))
+            self.handle.write(("," if self.count else "") + "\n " + json.dumps(record))
             self.count += 1
 
     def finish(self):

@@ -7,9 +7,11 @@ import numpy as np
 
 def plain(value):
     """A JSON-ready copy of ``value``: floats, ints, strings, lists; NaN and inf as None."""
+    if isinstance(value, float):  # the common case first: this runs once per output number
+        return value if math.isfinite(value) else None
     if isinstance(value, (tuple, list, np.ndarray)):
         return [plain(v) for v in value]
-    if isinstance(value, (float, np.floating)):
+    if isinstance(value, np.floating):
         return float(value) if math.isfinite(value) else None
     if isinstance(value, np.integer):
         return int(value)
