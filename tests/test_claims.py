@@ -21,6 +21,7 @@ def demo_run(tmp_path_factory):
               "--csv", str(out / "v.csv")], catch_exceptions=False,
     )
     rate = CliRunner().invoke(cli, ["rate", *map(str, demo_files()), "--json", str(out / "r.json")])
+    assert rate.exit_code == 0, rate.output
     return result, json.loads((out / "v.json").read_text()), {r["name"]: r for r in json.loads((out / "r.json").read_text())}
 
 
