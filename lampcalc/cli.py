@@ -247,6 +247,16 @@ def _flagged(value, spec, doubtful):
     return f"({text})" if doubtful and text != "-" else text
 
 
+def _read_some(files, **reading):
+    """read_files, with each error reported at once; a Failure when no file could be read."""
+    batches, errors = read_files(files, **reading)
+    for message in errors:
+        click.echo(f"lampcalc: {message}", err=True)
+    if not batches:
+        raise Failure("no spectrum could be read")
+    return batches, errors
+
+
 def _rating_table(ratings):
     from .text_table import format_table
 
@@ -512,15 +522,11 @@ def _verdict_text(verdicts):
 
 def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_out=None, steps="ellipse",
                     centre="ansi", quiet_table=False, **reading):
-    """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2)."""
+    """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2) and the ratings."""
     from .claims import check_claims, read_claims
 
     claims = read_claims(claims_path)
-    batches, errors = read_files(files, **reading)
-    for message in errors:
-        click.echo(f"lampcalc: {message}", err=True)
-    if not batches:
-        raise Failure("no spectrum could be read")
+    batches, errors = _read_some(files, **reading)
     nominal = {c.lamp: c.values["nominal_cct_K"] for c in claims.values() if "nominal_cct_K" in c.values}
     ratings = _rate(batches, nominal)
     verdicts = check_claims(claims, ratings, claims_path, sdcm_method=steps, sdcm_centre=centre)
@@ -533,8 +539,8 @@ def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_o
     click.echo(CAUTION)
     if errors:
         click.echo(f"lampcalc: {len(errors)} of {len(files)} spectrum files could not be read", err=True)
-        return 2
-    return 0 if verdicts.all_hold else 1
+        return 2, ratings
+    return (0 if verdicts.all_hold else 1), ratings
 
 
 @cli.command()
@@ -565,7 +571,7 @@ def check(paths, claims_path, json_out, csv_out, report_out, steps, centre, recu
     files = _collect_files(paths, recursive)
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
-    status = check_and_write(
+    status, _ = check_and_write(
         files, claims_path, json_out=json_out, csv_out=csv_out, report_out=report_out, steps=steps, centre=centre,
         **reading,
     )
@@ -592,12 +598,7 @@ def plot(kind, paths, out, lamps, diagram, zoom, duv_span, nominal, recursive, *
     from .plots.figures import FIGURES
     from .plots.style import figure_style, save_figure
 
-    files = _collect_files(paths, recursive)
-    batches, errors = read_files(files, **reading)
-    for message in errors:
-        click.echo(f"lampcalc: {message}", err=True)
-    if not batches:
-        raise Failure("no spectrum could be read")
+    batches, errors = _read_some(_collect_files(paths, recursive), **reading)
     ratings = _rate(batches)
     options = {"locus": {"space": diagram, "zoom": zoom, "duv_span": duv_span, "nominal_cct_K": nominal}}.get(kind, {})
     if kind in ("spectrum", "hue") and len(lamps) != 1 and len(ratings) > 1:
@@ -635,22 +636,20 @@ def demo(out_dir):
     if rate_and_write(files, json_out=out / "ratings.json", csv_out=out / "ratings.csv"):
         sys.exit(2)
     click.echo(f"\nChecking the supplier's claims ({demo_claims().name}):\n")
-    status = check_and_write(
+    status, ratings = check_and_write(
         files, demo_claims(), json_out=out / "checks.json", csv_out=out / "checks.csv",
         report_out=out / "report.pdf", quiet_table=True,
     )
     if status == 2:
         sys.exit(2)
-    _demo_figures(files, out)
+    _demo_figures(ratings, out)
     click.echo(f"\nResults in {out}/")
 
 
-def _demo_figures(files, out):
+def _demo_figures(ratings, out):
     from .plots.figures import FIGURES
     from .plots.style import figure_style, save_figure
 
-    batches, _ = read_files(files)
-    ratings = _rate(batches)
     jobs = [
         ("locus_xy.png", "locus", (), {"space": "xy"}),
         ("locus_white_upvp.png", "locus", (), {"space": "upvp", "zoom": True}),

@@ -49,14 +49,21 @@ def tcs_reflectances():
     return out
 
 
-def _sample_colorimetry(source, band):
-    """Tristimulus of the source (Y = 100), its (u, v), and the samples' Y and (u, v)."""
+@functools.lru_cache(maxsize=None)
+def _sample_weights(wavelength_range_nm):
+    """Band mask and R(λ)·cmf(λ) of all samples as one matrix: one product gives every sample's XYZ."""
+    band = (GRID_NM >= wavelength_range_nm[0]) & (GRID_NM <= wavelength_range_nm[1])
     cmf = colour_matching_functions("1931_2deg")[band]
+    weights = (tcs_reflectances()[:, band].T[:, :, None] * cmf[:, None, :]).reshape(cmf.shape[0], -1)
+    return band, cmf, weights
+
+
+def _sample_colorimetry(source, wavelength_range_nm):
+    """Tristimulus of the source (Y = 100), its (u, v), and the samples' Y and (u, v)."""
+    band, cmf, weights = _sample_weights(tuple(float(w) for w in wavelength_range_nm))
     source = source[:, band]
     XYZ = source @ cmf
     k = 100.0 / XYZ[:, 1]
-    # R(λ)·cmf(λ) of all samples as one matrix: one product gives every sample's XYZ.
-    weights = (tcs_reflectances()[:, band].T[:, :, None] * cmf[:, None, :]).reshape(cmf.shape[0], -1)
     samples = (source @ weights).reshape(source.shape[0], -1, 3) * k[:, None, None]
     uv = xy_to_uv(XYZ_to_xy(XYZ))
     return uv, samples[..., 1], xy_to_uv(XYZ_to_xy(samples))
@@ -101,10 +108,9 @@ def cie13_rendering(values, cct_K, wavelength_range_nm=(360.0, 830.0)):
     """
     values = np.atleast_2d(np.asarray(values, dtype=float))
     reference = reference_cie13(np.atleast_1d(np.asarray(cct_K, dtype=float)))
-    band = (GRID_NM >= wavelength_range_nm[0]) & (GRID_NM <= wavelength_range_nm[1])
     with np.errstate(invalid="ignore", divide="ignore"):
-        uv_t, Y_t, uv_ti = _sample_colorimetry(values, band)
-        uv_r, Y_r, uv_ri = _sample_colorimetry(reference, band)
+        uv_t, Y_t, uv_ti = _sample_colorimetry(values, wavelength_range_nm)
+        uv_r, Y_r, uv_ri = _sample_colorimetry(reference, wavelength_range_nm)
         # Step 3: von Kries adaptation in c, d (CIE 13.3, clause 5.3).
         c_t, d_t = _cd(uv_t)
         c_r, d_r = _cd(uv_r)
