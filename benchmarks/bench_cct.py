@@ -17,10 +17,10 @@ import numpy as np
 from scipy.optimize import brentq
 
 import lampcalc
-from lampcalc.constants import C2_CIE_mK
-from lampcalc.locus import locate
-from lampcalc.resampling import GRID_NM
-from lampcalc.tables import colour_matching_functions
+from lampcalc.physics.constants import C2_CIE_mK
+from lampcalc.colorimetry.locus import locate
+from lampcalc.spectra.resampling import GRID_NM
+from lampcalc.spectra.tables import colour_matching_functions
 
 
 def exact_locus(mired):

@@ -17,9 +17,9 @@ import warnings
 import numpy as np
 
 import lampcalc
-from lampcalc.locus import locate
+from lampcalc.colorimetry.locus import locate
 from lampcalc.rendering import cie13_rendering, cie224_fidelity
-from lampcalc.resampling import GRID_NM, linear
+from lampcalc.spectra.resampling import GRID_NM, linear
 
 SOURCES = [f"FL{i}" for i in range(1, 13)] + [f"FL3.{i}" for i in range(1, 16)] + [f"HP{i}" for i in range(1, 6)] + [
     "LED-B1", "LED-B2", "LED-B3", "LED-B4", "LED-B5", "LED-BH1", "LED-RGB1", "LED-V1", "LED-V2"]

@@ -27,10 +27,10 @@ import pathlib
 import numpy as np
 
 import lampcalc
-from lampcalc.blackbody import spectral_radiance
-from lampcalc.colorimetry import tristimulus
-from lampcalc.locus import cct_duv_to_xy
-from lampcalc.resampling import GRID_NM
+from lampcalc.physics.blackbody import spectral_radiance
+from lampcalc.colorimetry.tristimulus import tristimulus
+from lampcalc.colorimetry.locus import cct_duv_to_xy
+from lampcalc.spectra.resampling import GRID_NM
 
 OUT = pathlib.Path(__file__).resolve().parents[1] / "spectra_demo"
 HC_eV_nm = 1239.841984  # h·c in eV·nm

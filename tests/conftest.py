@@ -5,7 +5,7 @@ import pytest
 from click.testing import CliRunner
 
 from lampcalc.cli import cli
-from lampcalc.resampling import GRID_NM
+from lampcalc.spectra.resampling import GRID_NM
 
 
 # Each bad spectrum file: (content, fragment of the expected message). Tests that take the
@@ -68,7 +68,7 @@ def write(tmp_path):
 
 def blackbody_table(temperature_K, start=380, stop=780, step=5, delimiter=","):
     """Text table of blackbody spectra (relative), one column per temperature."""
-    from lampcalc.blackbody import spectral_radiance
+    from lampcalc.physics.blackbody import spectral_radiance
 
     wl = np.arange(start, stop + step / 2, step, dtype=float)
     values = spectral_radiance(np.atleast_1d(temperature_K), wl)

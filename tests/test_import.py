@@ -54,7 +54,8 @@ def test_every_subpackage_ships():
     from pathlib import Path
 
     root = Path(__file__).resolve().parents[1]
-    listed = set(re.search(r"^packages = \[(.*)\]", (root / "pyproject.toml").read_text(), re.M).group(1).replace('"', "").split(", "))
+    block = re.search(r"^packages = \[(.*?)\]", (root / "pyproject.toml").read_text(), re.M | re.S).group(1)
+    listed = {name.strip().strip('"') for name in block.split(",") if name.strip()}
     found = {"lampcalc"} | {
         "lampcalc." + p.parent.relative_to(root / "lampcalc").as_posix().replace("/", ".")
         for p in (root / "lampcalc").glob("*/__init__.py")

@@ -9,13 +9,13 @@ a nominal centre and the lamps as labelled points. Each element carries a ``gid`
 
 import numpy as np
 
-from ..bins import NOMINAL_CCTS_K, category
-from ..colorimetry import XYZ_to_xy, uv_to_xy, xy_to_upvp, xy_to_uv
-from ..daylight import daylight_locus_xy
-from ..locus import cct_duv_to_uv, isotemperature_lines
-from ..resampling import GRID_NM
-from ..steps import metric
-from ..tables import colour_matching_functions
+from ..colorimetry.daylight import daylight_locus_xy
+from ..colorimetry.locus import cct_duv_to_uv, isotemperature_lines
+from ..colorimetry.tristimulus import XYZ_to_xy, uv_to_xy, xy_to_upvp, xy_to_uv
+from ..spectra.resampling import GRID_NM
+from ..spectra.tables import colour_matching_functions
+from ..standards.ansi_bins import NOMINAL_CCTS_K, category
+from ..standards.steps import metric
 from .labels import place_labels
 from .style import ACCENT, DAYLIGHT, INK, LAMP, MUTED, PLANCK
 

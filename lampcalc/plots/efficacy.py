@@ -2,9 +2,12 @@
 
 import numpy as np
 
-from ..blackbody import luminous_efficacy_of_blackbody, peak_wavelength_nm, radiant_exitance, spectral_radiance
-from ..colorimetry import luminous_efficacy_of_radiation
-from ..resampling import GRID_NM
+from ..colorimetry.photometry import (
+    luminous_efficacy_of_blackbody,
+    luminous_efficacy_of_radiation,
+)
+from ..physics.blackbody import peak_wavelength_nm, radiant_exitance, spectral_radiance
+from ..spectra.resampling import GRID_NM
 from .labels import place_labels
 from .style import DAYLIGHT, INK, LAMP, PLANCK
 

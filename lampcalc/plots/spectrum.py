@@ -3,8 +3,12 @@
 import numpy as np
 
 from ..rendering.reference import reference_cie224
-from ..resampling import GRID_NM
-from ..tables import action_spectra_s026, colour_matching_functions, luminous_efficiency
+from ..spectra.resampling import GRID_NM
+from ..spectra.tables import (
+    action_spectra_s026,
+    colour_matching_functions,
+    luminous_efficiency,
+)
 from .style import INK, LAMP, MUTED, REFERENCE
 
 # IEC 61966-2-1 (sRGB): CIE XYZ to linear RGB.

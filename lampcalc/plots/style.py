@@ -67,8 +67,8 @@ def save_figure(fig, path):
 
     PDF and SVG carry no creation date, so the same figure gives the same bytes.
     """
-    from ..atomic import atomic_path
     from ..errors import InputError
+    from ..io.atomic import atomic_path
 
     path = Path(path)
     suffix = path.suffix.lower()

@@ -1,4 +1,5 @@
-"""Colour rendering and fidelity: one module per published method, and a small registry.
+"""Colour rendering and fidelity: one module per published method, and a small registry;
+photoreceptor ratios (S/P, CIE S 026 α-opic) in :mod:`~lampcalc.rendering.photoreceptors`.
 
 ========  ==================================================  =========================
 name      method                                              function
@@ -6,6 +7,8 @@ name      method                                              function
 cie13.3   CIE 13.3-1995 colour rendering index Ra, R1–R15     :func:`cie13_rendering`
 cie224    CIE 224:2017 Rf / ANSI/IES TM-30-18 Rf, Rg, bins    :func:`cie224_fidelity`
 ========  ==================================================  =========================
+
+May import :mod:`lampcalc.colorimetry` and the layers below it.
 """
 
 from .cie13 import cie13_rendering

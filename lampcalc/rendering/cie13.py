@@ -26,9 +26,9 @@ import functools
 
 import numpy as np
 
-from ..colorimetry import XYZ_to_xy, xy_to_uv
-from ..resampling import GRID_NM, sprague
-from ..tables import colour_matching_functions, read_table
+from ..colorimetry.tristimulus import XYZ_to_xy, xy_to_uv
+from ..spectra.resampling import GRID_NM, sprague
+from ..spectra.tables import colour_matching_functions, read_table
 from .reference import reference_cie13
 
 #: CIE 13.3 limit on the distance between lamp and reference in CIE 1960 (u, v).

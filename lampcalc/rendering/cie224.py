@@ -26,8 +26,8 @@ import functools
 
 import numpy as np
 
-from ..resampling import GRID_NM
-from ..tables import colour_matching_functions, read_table
+from ..spectra.resampling import GRID_NM
+from ..spectra.tables import colour_matching_functions, read_table
 from .reference import reference_cie224
 
 #: The CIE 224 computation band, 380–780 nm on the 1 nm grid.

@@ -15,11 +15,11 @@ NaN or above 25 000 K; those rows are NaN.
 
 import numpy as np
 
-from ..blackbody import spectral_radiance
-from ..constants import C2_CIE_mK
-from ..daylight import DAYLIGHT_RANGE_K, daylight_spectrum
-from ..resampling import GRID_NM
-from ..tables import colour_matching_functions
+from ..colorimetry.daylight import DAYLIGHT_RANGE_K, daylight_spectrum
+from ..physics.blackbody import spectral_radiance
+from ..physics.constants import C2_CIE_mK
+from ..spectra.resampling import GRID_NM
+from ..spectra.tables import colour_matching_functions
 
 
 def _planckian(cct, band=slice(None)):
@@ -52,7 +52,7 @@ def reference_cie224(cct_K, band=slice(None), daylight_interpolation="linear"):
     """CIE 224 / TM-30 reference spectra on the grid (or a ``band`` of it); NaN rows where none exists.
 
     The luminance normalisation of the 4000–5000 K mixture uses the same band.
-    ``daylight_interpolation`` is passed to :func:`~lampcalc.daylight.daylight_spectrum`.
+    ``daylight_interpolation`` is passed to :func:`~lampcalc.colorimetry.daylight.daylight_spectrum`.
     """
     cct = np.asarray(cct_K, dtype=float)
     ybar = colour_matching_functions("1931_2deg")[band, 1]

@@ -1,0 +1,33 @@
+"""The ``lampcalc`` command line: a thin layer over the library, one module per command.
+
+Only click is imported at start-up; each command imports what it needs, so that
+``lampcalc --help`` answers at once. Bad input ends a command with one line on stderr
+and exit status 2, never a traceback.
+"""
+
+import click
+
+from .cct import cct
+from .check import check
+from .demo import demo
+from .planck import planck
+from .plot import plot
+from .rate import rate
+
+
+@click.group(context_settings={"help_option_names": ["-h", "--help"]})
+@click.version_option(package_name="lampcalc")
+def cli():
+    """Rate lamp spectra: chromaticity, CCT/Duv, rendering, efficacy, claims.
+
+    Start with `lampcalc demo`, or `lampcalc rate FILE...` on your own spectra.
+    """
+
+
+for _command in (planck, cct, rate, check, plot, demo):
+    cli.add_command(_command)
+
+
+def main(argv=None):
+    """Entry point of the ``lampcalc`` console script."""
+    cli.main(args=argv, prog_name="lampcalc")

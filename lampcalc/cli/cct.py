@@ -1,0 +1,103 @@
+"""``lampcalc cct``: CCT and Duv of chromaticities given as options or in a CSV file."""
+
+import sys
+
+import click
+
+from .common import Failure, fail_on_input_errors, fmt
+
+
+def convert_file(csv_file, observer, writer, problems, shown):
+    """Stream a chromaticity CSV through the converter, with a progress bar on a terminal."""
+    import os
+
+    from ..colorimetry.locus import locate_with_flags
+    from ..io.chromaticity_files import COORDINATE_COLUMNS, iter_chunks
+
+    size = os.path.getsize(csv_file)
+    bar = click.progressbar(length=size, label="converting", file=sys.stderr) if sys.stderr.isatty() else None
+    done = 0
+    for header, kind, rows, coords, bad, fraction in iter_chunks(csv_file):
+        c, d, flags = locate_with_flags(coords, COORDINATE_COLUMNS[kind], observer)
+        problems += bad
+        if writer:
+            writer.write(header, rows, c, d, flags)
+        else:
+            shown += [(", ".join(r), ci, di, f) for r, ci, di, f in zip(rows, c, d, flags)]
+        if bar:
+            bar.update(int(fraction * size) - done)
+            done = int(fraction * size)
+    if bar:
+        bar.render_finish()
+
+
+@click.command()
+@click.argument("csv_file", required=False, type=click.Path(exists=True, dir_okay=False), metavar="[FILE.csv]")
+@click.option("--xy", "xy", type=(float, float), multiple=True, metavar="X Y", help="CIE 1931 x, y (repeatable).")
+@click.option("--uv", "uv", type=(float, float), multiple=True, metavar="U V", help="CIE 1960 u, v (repeatable).")
+@click.option(
+    "--upvp", "upvp", type=(float, float), multiple=True, metavar="U' V'", help="CIE 1976 u', v' (repeatable)."
+)
+@click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write the rows with cct_K, duv, flag to CSV.")
+@click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write the rows with cct_K, duv, flag to JSON.")
+@click.option(
+    "--observer",
+    type=click.Choice(["1931_2deg", "1964_10deg"]),
+    default="1931_2deg",
+    show_default=True,
+    help="Observer of the Planckian locus.",
+)
+@fail_on_input_errors
+def cct(csv_file, xy, uv, upvp, csv_out, json_out, observer):
+    """CCT and Duv of chromaticities: given as options, or a CSV FILE with columns x,y or u,v
+    or u_prime,v_prime.
+
+    CCT is the temperature of the nearest point of the Planckian locus in CIE 1960 u, v
+    (CIE 015:2018); Duv is the distance, positive above the locus. Outside 1000-100000 K
+    there is no CCT; beyond |Duv| = 0.05 it is flagged.
+    """
+    import contextlib
+
+    from ..colorimetry.locus import locate_with_flags
+    from ..io.chromaticity_files import COORDINATE_COLUMNS, open_rows
+
+    if csv_out and json_out:
+        raise Failure("choose one of --csv and --json")
+    if csv_file and (xy or uv or upvp):
+        raise Failure("give either a FILE or --xy/--uv/--upvp points, not both")
+    if not csv_file and not (xy or uv or upvp):
+        raise Failure("nothing to convert: give a FILE.csv or points with --xy, --uv or --upvp")
+    out_path, form = (csv_out, "csv") if csv_out else (json_out, "json") if json_out else (None, None)
+    problems, shown = [], []
+    with open_rows(out_path, form) if out_path else contextlib.nullcontext() as writer:
+        if csv_file:
+            convert_file(csv_file, observer, writer, problems, shown)
+        else:
+            import numpy as np
+
+            for option, values in (("x,y", xy), ("u,v", uv), ("u_prime,v_prime", upvp)):
+                if not values:
+                    continue
+                kind = tuple(option.split(","))
+                c, d, flags = locate_with_flags(np.array(values, dtype=float), COORDINATE_COLUMNS[kind], observer)
+                if writer:
+                    writer.write(list(kind), [[repr(a), repr(b)] for a, b in values], c, d, flags)
+                label = option.replace("_prime", "'")
+                shown += [(f"{label} = {a:g}, {b:g}", ci, di, f) for (a, b), ci, di, f in zip(values, c, d, flags)]
+    if writer:
+        click.echo(f"wrote {writer.count} rows to {out_path}", err=True)
+    if shown:
+        from .text_table import format_table
+
+        rows = [[p, fmt(c, ".2f"), fmt(d, "+.6f"), f or "-"] for p, c, d, f in shown]
+        click.echo(format_table(["input", "CCT K", "Duv", "flag"], rows, "lrrl"))
+        if any(f for *_, f in shown):
+            click.echo(
+                "flags: cct_below_1000K / cct_above_100000K: no CCT in range (shown '-'); "
+                "duv_beyond_0.05: computed, but CIE 015 advises against using a CCT this far from the locus."
+            )
+    for message in problems:
+        click.echo(f"lampcalc: {message}", err=True)
+    if problems:
+        click.echo(f"lampcalc: {len(problems)} rows could not be read; the others were converted", err=True)
+        sys.exit(2)

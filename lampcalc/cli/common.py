@@ -1,0 +1,198 @@
+"""What the commands share: one-line failures, reading files, progress, writing outputs.
+
+Only click is imported here at start-up; the library is imported inside the functions,
+so that ``lampcalc --help`` answers at once.
+"""
+
+import sys
+from pathlib import Path
+
+import click
+
+from ..io.formats import SPECTRUM_SUFFIXES
+
+
+class Failure(click.ClickException):
+    """A one-line error that ends the command with status 2."""
+
+    exit_code = 2
+
+    def show(self, file=None):
+        click.echo(f"lampcalc: {self.format_message()}", err=True)
+
+
+def fail_on_input_errors(fn):
+    """Turn an InputError raised by a command into a one-line Failure (exit status 2)."""
+    import functools
+
+    @functools.wraps(fn)
+    def wrapper(*args, **kwargs):
+        from ..errors import InputError
+
+        try:
+            return fn(*args, **kwargs)
+        except InputError as err:
+            raise Failure(str(err)) from None
+
+    return wrapper
+
+
+def progress(items, label):
+    """A progress bar on a terminal, nothing when stderr is piped."""
+    items = list(items)
+    if sys.stderr.isatty() and len(items) > 1:
+        return click.progressbar(items, label=label, file=sys.stderr)
+    return _Quiet(items)
+
+
+class _Quiet:
+    def __init__(self, items):
+        self.items = items
+
+    def __enter__(self):
+        return iter(self.items)
+
+    def __exit__(self, *exc):
+        return False
+
+
+def write_text(path, text):
+    from ..io.atomic import write_atomic
+
+    try:
+        write_atomic(path, text)
+    except OSError as err:
+        raise Failure(f"{path}: cannot write ({err.strerror or err})") from None
+
+
+def fmt(value, spec):
+    import math
+
+    if value is None or (isinstance(value, float) and not math.isfinite(value)):
+        return "-"
+    text = format(value, spec)
+    return format(0.0, spec) if float(text) == 0 else text
+
+
+def flagged(value, spec, doubtful):
+    """A number, in parentheses when a flag says it is not to be used as an ordinary value."""
+    text = fmt(value, spec)
+    return f"({text})" if doubtful and text != "-" else text
+
+
+def collect_files(paths, recursive):
+    files = []
+    for p in map(Path, paths):
+        if p.is_dir():
+            if not recursive:
+                raise Failure(f"{p}: is a folder; pass -r to read the spectrum files inside it")
+            files += sorted(f for f in p.rglob("*") if f.is_file() and f.suffix.lower() in SPECTRUM_SUFFIXES)
+        else:
+            files.append(p)
+    return files
+
+
+def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, interpolation="linear", watts=None):
+    """Read every file onto the grid; returns ``(batches, errors)``. ``strict`` stops at the first error.
+
+    ``watts`` is the electrical power of every lamp whose file does not give one.
+    """
+    from ..errors import InputError
+    from ..io.spectrum_files import read_spectra
+
+    batches, errors = [], []
+    with progress(files, "reading spectra") as bar:
+        for f in bar:
+            try:
+                batch = read_spectra(f, wavelength_unit=wavelength_unit, quantity=quantity)
+                if watts is not None:
+                    batch = batch.with_electrical_power(watts)
+                batches.append(batch.on_grid(interpolation))
+            except InputError as err:
+                if strict:
+                    raise Failure(str(err)) from None
+                errors.append(str(err))
+    return batches, errors
+
+
+def read_some(files, **reading):
+    """read_files, with each error reported at once; a Failure when no file could be read."""
+    batches, errors = read_files(files, **reading)
+    for message in errors:
+        click.echo(f"lampcalc: {message}", err=True)
+    if not batches:
+        raise Failure("no spectrum could be read")
+    return batches, errors
+
+
+def rate_batches(batches, nominal=None):
+    from ..rating.rate import rate_spectra
+    from ..spectra.batch import SpectralBatch
+
+    batch = SpectralBatch.concatenate(batches)
+    if batch.n_lamps > 200 and sys.stderr.isatty():
+        click.echo(f"rating {batch.n_lamps} lamps ...", err=True)
+    names = batch.names
+    nominal_cct = None if nominal is None else [nominal.get(name, float("nan")) for name in names]
+    return rate_spectra(batch, nominal_cct_K=nominal_cct)
+
+
+def spectrum_options(fn):
+    """Options shared by the commands that read spectrum files."""
+    for option in reversed(
+        [
+            click.option("-r", "--recursive", is_flag=True, help="Read the spectrum files in folders and their subfolders."),
+            click.option("--strict", is_flag=True, help="Stop at the first file that cannot be read."),
+            click.option(
+                "--wavelength-unit",
+                type=click.Choice(["nm", "um"]),
+                default=None,
+                help="Unit of the wavelength column (default: what the file says, else nm).",
+            ),
+            click.option(
+                "--quantity",
+                type=click.Choice(["relative", "flux", "irradiance", "radiance"]),
+                default=None,
+                help="Radiometric quantity of the spectra (default: what the file says, else relative).",
+            ),
+            click.option(
+                "--watts",
+                type=click.FloatRange(min=0, min_open=True),
+                default=None,
+                metavar="W",
+                help="Electrical power of every lamp whose file gives none, W (for lamp efficacy).",
+            ),
+            click.option(
+                "--interpolation",
+                type=click.Choice(["linear", "sprague"]),
+                default="linear",
+                show_default=True,
+                help="Resampling to 1 nm: linear (measured spectra) or Sprague (uniform, smooth data; CIE 167).",
+            ),
+        ]
+    ):
+        fn = option(fn)
+    return fn
+
+
+def write_report_file(path, ratings, verdicts=None):
+    from ..report.pdf import write_report
+
+    n_pages = len(ratings) + 2
+    if sys.stderr.isatty():
+        with click.progressbar(length=n_pages, label="writing report", file=sys.stderr) as bar:
+            pages = write_report(path, ratings, verdicts, progress=bar.update)
+    else:
+        pages = write_report(path, ratings, verdicts)
+    click.echo(f"wrote {path} ({pages} pages)", err=True)
+
+
+def write_outputs(ratings, verdicts, json_out, csv_out, report_out):
+    """The files a command was asked for: JSON and CSV of the verdicts (else the ratings), the report."""
+    table = verdicts or ratings
+    for path, text in ((json_out, table.to_json), (csv_out, table.to_csv)):
+        if path:
+            write_text(path, text())
+            click.echo(f"wrote {path}", err=True)
+    if report_out:
+        write_report_file(report_out, ratings, verdicts)

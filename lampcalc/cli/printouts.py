@@ -1,0 +1,85 @@
+"""The tables the commands print: ratings and claim verdicts, with their notes."""
+
+from .common import flagged, fmt
+
+
+def rating_table(ratings):
+    from .text_table import format_table
+
+    rows = []
+    for r in ratings.records():
+        flags = set(r["flags"])
+        cri_doubt = "cri_outside_validity" in flags
+        fid_doubt = "duv_beyond_0.05" in flags
+        r9 = r["ri"][8] if r["ri"] else None
+        rows.append(
+            [
+                r["name"],
+                fmt(r["cct_K"], ".0f"),
+                fmt(r["duv"], "+.4f"),
+                fmt(r["ansi_nominal_cct_K"], ".0f"),
+                fmt(r["sdcm_steps"], ".1f"),
+                flagged(r["ra"], ".1f", cri_doubt),
+                flagged(r9, ".1f", cri_doubt),
+                flagged(r["rf"], ".1f", fid_doubt),
+                flagged(r["rg"], ".1f", fid_doubt),
+                fmt(r["ler_lm_per_W"], ".1f"),
+                fmt(r["efficacy_lm_per_W"], ".1f"),
+                fmt(r["sp_ratio"], ".2f"),
+                fmt(r["melanopic_der"], ".3f"),
+                ", ".join(r["flags"]) or "-",
+            ]
+        )
+    headers = ["lamp", "CCT K", "Duv", "ANSI", "steps", "Ra", "R9", "Rf", "Rg", "LER lm/W", "lamp lm/W", "S/P", "mel-DER", "flags"]
+    return format_table(headers, rows, "lrrrrrrrrrrrrl")
+
+
+TABLE_NOTES = (
+    "ANSI: the ANSI C78.377-2017 nominal CCT category the lamp is in; steps: IEC 60081 ellipse steps from the\n"
+    "centre of the claimed nominal CCT, else of the nearest category. LER: efficacy of the radiation over the\n"
+    "measured part of 360-830 nm; lamp lm/W: lamp efficacy (needs W/nm and the electrical power).\n"
+    "Ra, R9: CIE 13.3-1995, unrounded. Rf, Rg: CIE 224:2017 / ANSI/IES TM-30-18. "
+    "(values): computed outside the method's validity; '-': not computable."
+)
+
+
+CRITERIA = {
+    # criterion: (label, claimed format, value format, unit)
+    "ansi_quadrangle": ("ANSI quadrangle", "{:g} K", "{:.0f} K", "e-3 uv"),
+    "ansi_cct_K": ("ANSI target CCT", "{:g} K", "{:.0f} K", "K"),
+    "ansi_duv": ("ANSI target Duv", "{:+.4f}", "{:+.4f}", ""),
+    "sdcm_steps": ("colour consistency", "<= {:g} steps", "{:.2f} steps", "steps"),
+    "ra": ("Ra", ">= {:g}", "{:.1f}", ""),
+    "r9": ("R9", ">= {:g}", "{:.1f}", ""),
+    "rf": ("Rf", ">= {:g}", "{:.1f}", ""),
+    "rg_min": ("Rg", ">= {:g}", "{:.1f}", ""),
+    "rg_max": ("Rg", "<= {:g}", "{:.1f}", ""),
+    "ler_lm_per_W": ("LER", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
+    "efficacy_lm_per_W": ("lamp efficacy", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
+}
+RESULT = {True: "holds", False: "FAILS", None: "not shown"}
+
+
+def verdict_text(verdicts):
+    import math
+
+    from .text_table import format_table
+
+    blocks = []
+    for lamp in verdicts.lamps:
+        rows = []
+        for c in lamp["checks"]:
+            label, claimed_fmt, value_fmt, unit = CRITERIA[c["criterion"]]
+            claimed = claimed_fmt.format(c["claimed"]) if c["claimed"] is not None else "-"
+            measured = value_fmt.format(c["measured"]) if c["measured"] is not None else "-"
+            margin = "-" if c["margin"] is None or not math.isfinite(c["margin"]) else f"{c['margin']:+.4g} {unit}".strip()
+            rows.append([label, claimed, measured, margin, RESULT[c["pass"]], c["note"]])
+        failing = sum(c["pass"] is not True for c in lamp["checks"])
+        head = f"{lamp['lamp']}: " + ("every claim holds" if lamp["pass"] else f"{failing} of {len(lamp['checks'])} checks do not hold")
+        table = format_table(["claim", "claimed", "measured", "margin", "result", "note"], rows, "lllrll")
+        blocks.append(head + "\n" + "\n".join("  " + line for line in table.splitlines()))
+    blocks.append(
+        "margin: how far the measurement is on the right side of the claim (negative: it fails by that much);\n"
+        "for the ANSI quadrangle, the distance from its nearest edge in CIE 1960 u,v (x 1e-3)."
+    )
+    return "\n\n".join(blocks)

@@ -1,0 +1,24 @@
+"""The bundled demo: spectra of a fictional supplier's lamps (``spectra_demo/``)."""
+
+from importlib import resources
+from pathlib import Path
+
+from .formats import SPECTRUM_SUFFIXES
+
+
+def demo_folder():
+    """Folder of the demo spectra inside the installed package."""
+    return Path(str(resources.files("lampcalc.spectra_demo")))
+
+
+def demo_files():
+    """The demo spectrum files, sorted by name (claims files excluded)."""
+    folder = demo_folder()
+    return sorted(
+        p for p in folder.iterdir() if p.suffix in SPECTRUM_SUFFIXES and not p.name.startswith(("claims", "."))
+    )
+
+
+def demo_claims():
+    """The fictional supplier's claims file."""
+    return demo_folder() / "claims_quillfen.csv"

@@ -1,0 +1,107 @@
+"""The :class:`Ratings` table: one column per quantity, one row per lamp.
+
+Its JSON and CSV forms use the keys of :data:`FIELDS`, documented in
+``docs/output-fields.md``.
+"""
+
+import csv
+import io
+import json
+
+from ..io.serialise import cell, plain
+
+#: Output fields in order: key -> description (with unit). Lists are noted as such.
+FIELDS = {
+    "name": "lamp name, from the file's header or the file name",
+    "source": "file and column the spectrum came from",
+    "quantity": "radiometric quantity of the spectrum: relative, flux, irradiance or radiance",
+    "range_start_nm": "first measured wavelength, nm",
+    "range_end_nm": "last measured wavelength, nm",
+    "step_nm": "median measurement interval, nm",
+    "peak_nm": "wavelength of the spectrum's maximum on the 1 nm grid, nm",
+    "x": "CIE 1931 chromaticity x",
+    "y": "CIE 1931 chromaticity y",
+    "u": "CIE 1960 UCS u",
+    "v": "CIE 1960 UCS v",
+    "u_prime": "CIE 1976 UCS u'",
+    "v_prime": "CIE 1976 UCS v'",
+    "cct_K": "correlated colour temperature, exact nearest point on the Planckian locus, K (null outside 1000-100000 K)",
+    "duv": "signed distance from the Planckian locus in CIE 1960 u, v; positive above (greenish)",
+    "ra": "CIE 13.3 general colour rendering index Ra (unrounded)",
+    "ri": "CIE 13.3 special indices R1..R15 in order (list; R15 is the JIS Z 8726 skin-tone sample)",
+    "cri_dc": "CIE 13.3 distance DC between lamp and reference in CIE 1960 u, v (valid up to 5.4e-3)",
+    "rf": "CIE 224:2017 / ANSI/IES TM-30-18 fidelity index Rf",
+    "rg": "ANSI/IES TM-30-18 gamut index Rg",
+    "rf_hue_bins": "TM-30-18 local fidelity Rf,h1..Rf,h16 (list)",
+    "chroma_shift_hue_bins_percent": "TM-30-18 local chroma shift Rcs,h1..Rcs,h16, % (list)",
+    "hue_shift_hue_bins_rad": "TM-30-18 local hue shift Rhs,h1..Rhs,h16, radians (list)",
+    "ansi_edition": "edition of the nominal CCT categories: ANSI C78.377-2017",
+    "ansi_nominal_cct_K": "nominal CCT category whose quadrangle holds the lamp, K (null if none)",
+    "ansi_nearest_nominal_cct_K": "nominal CCT category whose quadrangle is nearest, K",
+    "ansi_margin_uv": "signed edge distance from that quadrangle in CIE 1960 u, v (positive inside)",
+    "ansi_delta_cct_K": "CCT minus the nearest category's target CCT, K",
+    "ansi_delta_duv": "Duv minus the nearest category's target Duv",
+    "sdcm_centre_nominal_cct_K": "nominal CCT whose centre the steps are counted from (claimed, else nearest category), K",
+    "sdcm_steps": "colour-consistency steps (IEC 60081 ellipses) from that centre",
+    "ler_lm_per_W": "luminous efficacy of radiation over ler_range_nm, lm/W (not the lamp's efficacy)",
+    "ler_range_nm": "[start, end] of the wavelengths LER is computed over, nm (list)",
+    "luminous_flux_lm": "luminous flux, lm (spectra in W/nm only)",
+    "illuminance_lx": "illuminance, lx (spectra in W/(m2 nm) only)",
+    "luminance_cd_per_m2": "luminance, cd/m2 (spectra in W/(sr m2 nm) only)",
+    "radiant_flux_W": "radiant flux over ler_range_nm, W (spectra in W/nm only)",
+    "electrical_W": "electrical power from the input, W",
+    "efficacy_lm_per_W": "lamp luminous efficacy, luminous flux / electrical power, lm/W",
+    "sp_ratio": "scotopic/photopic ratio, 1700·ΣV'S / (683·ΣVS) over 380-780 nm",
+    "s_cone_elr_mW_per_lm": "CIE S 026 s-cone-opic efficacy of luminous radiation, mW/lm",
+    "m_cone_elr_mW_per_lm": "CIE S 026 m-cone-opic efficacy of luminous radiation, mW/lm",
+    "l_cone_elr_mW_per_lm": "CIE S 026 l-cone-opic efficacy of luminous radiation, mW/lm",
+    "rhodopic_elr_mW_per_lm": "CIE S 026 rhodopic efficacy of luminous radiation, mW/lm",
+    "melanopic_elr_mW_per_lm": "CIE S 026 melanopic efficacy of luminous radiation, mW/lm",
+    "s_cone_der": "CIE S 026 s-cone-opic daylight (D65) efficacy ratio",
+    "m_cone_der": "CIE S 026 m-cone-opic daylight (D65) efficacy ratio",
+    "l_cone_der": "CIE S 026 l-cone-opic daylight (D65) efficacy ratio",
+    "rhodopic_der": "CIE S 026 rhodopic daylight (D65) efficacy ratio",
+    "melanopic_der": "CIE S 026 melanopic daylight (D65) efficacy ratio",
+    "melanopic_edi_lx": "melanopic equivalent daylight (D65) illuminance, lx (spectra in W/(m2 nm) only)",
+    "flags": "conditions that qualify the numbers (list of strings, see docs/output-fields.md)",
+}
+
+
+class Ratings:
+    """Ratings of a batch of lamps: columns of :data:`FIELDS`, one row per lamp.
+
+    ``ratings[key]`` is the column (a NumPy array, or a tuple for strings and lists);
+    :meth:`records` gives one dict per lamp with JSON-ready values (NaN → None).
+    ``extras`` keeps what figures need but files do not: the spectra on the grid
+    (``"batch"``) and the TM-30 bin means (``"ref_ab_bins"``, ``"test_ab_bins"``).
+    """
+
+    def __init__(self, columns, extras=None):
+        self.columns = dict(columns)
+        self.extras = dict(extras or {})
+
+    def __getitem__(self, key):
+        return self.columns[key]
+
+    def __len__(self):
+        return len(self.columns["name"])
+
+    def records(self):
+        """One dict per lamp, keys in :data:`FIELDS` order, NaN as None."""
+        keys = [k for k in FIELDS if k in self.columns]
+        return [{k: plain(self.columns[k][i]) for k in keys} for i in range(len(self))]
+
+    def to_json(self):
+        """JSON text: a list with one object per lamp."""
+        return json.dumps(self.records(), indent=1, allow_nan=False) + "\n"
+
+    def to_csv(self):
+        """CSV text: one row per lamp; list fields are joined with ';'."""
+        records = self.records()
+        keys = [k for k in FIELDS if k in self.columns]
+        out = io.StringIO()
+        writer = csv.writer(out, lineterminator="\n")
+        writer.writerow(keys)
+        for rec in records:
+            writer.writerow([cell(rec[k]) for k in keys])
+        return out.getvalue()
