@@ -1,5 +1,6 @@
 """The tables the commands print: ratings and claim verdicts, with their notes."""
 
+from ..rating.flags import doubtful_keys
 from .common import flagged, fmt
 
 
@@ -8,9 +9,7 @@ def rating_table(ratings):
 
     rows = []
     for r in ratings.records():
-        flags = set(r["flags"])
-        cri_doubt = "cri_outside_validity" in flags
-        fid_doubt = "duv_beyond_0.05" in flags
+        doubt = doubtful_keys(r["flags"])
         r9 = r["ri"][8] if r["ri"] else None
         rows.append(
             [
@@ -19,10 +18,10 @@ def rating_table(ratings):
                 fmt(r["duv"], "+.4f"),
                 fmt(r["ansi_nominal_cct_K"], ".0f"),
                 fmt(r["sdcm_steps"], ".1f"),
-                flagged(r["ra"], ".1f", cri_doubt),
-                flagged(r9, ".1f", cri_doubt),
-                flagged(r["rf"], ".1f", fid_doubt),
-                flagged(r["rg"], ".1f", fid_doubt),
+                flagged(r["ra"], ".1f", "ra" in doubt),
+                flagged(r9, ".1f", "ri" in doubt),
+                flagged(r["rf"], ".1f", "rf" in doubt),
+                flagged(r["rg"], ".1f", "rg" in doubt),
                 fmt(r["ler_lm_per_W"], ".1f"),
                 fmt(r["efficacy_lm_per_W"], ".1f"),
                 fmt(r["sp_ratio"], ".2f"),

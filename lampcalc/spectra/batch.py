@@ -57,6 +57,9 @@ class SpectralBatch:
         when a batch is resampled, so that results can state the range they cover.
     measured_step_nm : array_like, shape (n_lamps,)
         Median measurement interval per lamp; by default that of the axis.
+    angle_deg : array_like, shape (n_lamps,)
+        Direction of emission each spectrum was measured at (a goniometer's angle), degrees;
+        NaN where not known.
     """
 
     wavelength_nm: np.ndarray
@@ -68,6 +71,7 @@ class SpectralBatch:
     flags: tuple = None
     measured_range_nm: np.ndarray = None
     measured_step_nm: np.ndarray = None
+    angle_deg: np.ndarray = None
 
     def __post_init__(self):
         wl = np.asarray(self.wavelength_nm, dtype=float)
@@ -97,7 +101,10 @@ class SpectralBatch:
             if self.measured_step_nm is None
             else np.asarray(self.measured_step_nm, dtype=float).reshape(n)
         )
-        for arr in (wl, values, watts, ranges, steps):
+        angles = np.full(n, np.nan) if self.angle_deg is None else np.asarray(self.angle_deg, dtype=float)
+        if angles.shape != (n,):
+            raise ValueError(f"angle_deg must have shape ({n},), got {angles.shape}")
+        for arr in (wl, values, watts, ranges, steps, angles):
             arr.flags.writeable = False
         for name, value in (
             ("wavelength_nm", wl),
@@ -109,6 +116,7 @@ class SpectralBatch:
             ("electrical_W", watts),
             ("measured_range_nm", ranges),
             ("measured_step_nm", steps),
+            ("angle_deg", angles),
         ):
             object.__setattr__(self, name, value)
 
@@ -180,6 +188,7 @@ class SpectralBatch:
             electrical_W=self.electrical_W[idx],
             measured_range_nm=self.measured_range_nm[idx],
             measured_step_nm=self.measured_step_nm[idx],
+            angle_deg=self.angle_deg[idx],
         )
 
     @classmethod
@@ -206,4 +215,5 @@ class SpectralBatch:
             flags=sum((b.flags for b in batches), ()),
             measured_range_nm=np.concatenate([b.measured_range_nm for b in batches]),
             measured_step_nm=np.concatenate([b.measured_step_nm for b in batches]),
+            angle_deg=np.concatenate([b.angle_deg for b in batches]),
         )

@@ -1,0 +1,34 @@
+"""SpectralBatch keeps each lamp's own data (names, power, angle, flags) through slicing, joining and resampling.
+
+Internal bookkeeping of the container; the values themselves come from Planck's law.
+"""
+
+import numpy as np
+import pytest
+
+from lampcalc.physics.blackbody import spectral_radiance
+from lampcalc.spectra.batch import SpectralBatch
+from lampcalc.spectra.resampling import GRID_NM
+
+
+def _batch(temps, angles=None):
+    wl = np.arange(380.0, 781.0, 5.0)
+    return SpectralBatch(wl, spectral_radiance(temps, wl), names=[f"T{t:g}" for t in temps],
+                         electrical_W=[10.0] * len(temps), angle_deg=angles)
+
+
+def test_angle_defaults_to_unknown_and_follows_each_lamp():
+    assert np.all(np.isnan(_batch([3000.0]).angle_deg))
+    joined = SpectralBatch.concatenate([_batch([3000.0, 4000.0], [0.0, 30.0]), _batch([5000.0], [60.0])])
+    assert joined.angle_deg.tolist() == [0.0, 30.0, 60.0]
+    picked = joined[[2, 0]]
+    assert picked.names == ("T5000", "T3000")
+    assert picked.angle_deg.tolist() == [60.0, 0.0]
+    on_grid = picked.on_grid()
+    assert np.array_equal(on_grid.wavelength_nm, GRID_NM)
+    assert on_grid.angle_deg.tolist() == [60.0, 0.0]
+
+
+def test_angle_shape_is_checked():
+    with pytest.raises(ValueError, match="angle_deg must have shape"):
+        _batch([3000.0, 4000.0], [0.0])
