@@ -5,8 +5,8 @@ every further column one lamp. Comment lines (``#``, ``%``, ``//``) and metadata
 may come before the table; a header row of names is optional. Semicolon-, tab- and
 whitespace-separated files may use decimal commas (``0,123``). Metadata lines of the
 form ``key: value`` (or ``key = value``, or ``key<delimiter>value``) may set
-``quantity`` (relative, flux, irradiance, radiance), ``electrical_W`` (one value,
-or one per lamp) and ``wavelength_unit`` (nm or um). See ``docs/spectrum-files.md``.
+``quantity`` (relative, flux, irradiance, radiance), ``electrical_W`` and ``angle_deg``
+(one value, or one per lamp) and ``wavelength_unit`` (nm or um). See ``docs/spectrum-files.md``.
 """
 
 import re
@@ -85,20 +85,22 @@ def _metadata_quantity(meta, where):
     return value
 
 
-def _metadata_watts(meta, n_lamps, where, decimal_comma):
-    if "electrical_w" not in meta:
+def _metadata_per_lamp(meta, key, label, n_lamps, where, decimal_comma, positive):
+    """One number for every lamp, or one per lamp, from a metadata line (None if absent)."""
+    if key not in meta:
         return None
-    line, value = meta["electrical_w"]
+    line, value = meta[key]
     cells = [c for c in re.split(r"[;\t ]+" if decimal_comma else r"[,;\t ]+", value) if c]
     try:
-        watts = [_number(c, decimal_comma) for c in cells]
+        numbers = [_number(c, decimal_comma) for c in cells]
     except ValueError:
-        raise where(f"electrical_W {value!r} is not a number", line) from None
-    if len(watts) == 1:
-        watts = watts * n_lamps
-    if len(watts) != n_lamps or any(not (w > 0) for w in watts):
-        raise where(f"electrical_W needs one positive value or one per lamp ({n_lamps}), got {value!r}", line)
-    return watts
+        raise where(f"{label} {value!r} is not a number", line) from None
+    if len(numbers) == 1:
+        numbers = numbers * n_lamps
+    if len(numbers) != n_lamps or (positive and any(not (w > 0) for w in numbers)):
+        kind = "positive value" if positive else "value"
+        raise where(f"{label} needs one {kind} or one per lamp ({n_lamps}), got {value!r}", line)
+    return numbers
 
 
 def _number(cell, decimal_comma):
@@ -179,5 +181,8 @@ def read_spectra_text(text, path="<text>", *, wavelength_unit=None, quantity=Non
         (header[k + 1] if header and header[k + 1] else f"{stem}_{k + 1}") for k in range(n_lamps)
     )
     quantity = quantity or _metadata_quantity(meta, where) or "relative"
-    watts = _metadata_watts(meta, n_lamps, where, decimal_comma)
-    return build_batch(wl, data[:, 1:].T, names, quantity, watts, path, list(range(2, width + 1)), lines, where)
+    watts = _metadata_per_lamp(meta, "electrical_w", "electrical_W", n_lamps, where, decimal_comma, positive=True)
+    angles = _metadata_per_lamp(meta, "angle_deg", "angle_deg", n_lamps, where, decimal_comma, positive=False)
+    return build_batch(
+        wl, data[:, 1:].T, names, quantity, watts, path, list(range(2, width + 1)), lines, where, angles
+    )

@@ -1,7 +1,7 @@
 """lampcalc's own JSON form of spectra: reading and writing.
 
 ``{"lampcalc_spectra": 1, "quantity": ..., "wavelength_nm": [...],
-"lamps": [{"name": ..., "values": [...], "electrical_W": ...}, ...]}``
+"lamps": [{"name": ..., "values": [...], "electrical_W": ..., "angle_deg": ...}, ...]}``
 (``docs/spectrum-files.md``).
 """
 
@@ -54,7 +54,7 @@ def read_spectra_json(text, path="<json>", *, quantity=None):
     q = quantity or doc.get("quantity", "relative")
     if q not in QUANTITY_UNITS:
         raise where(f"unknown quantity {q!r}; use one of {', '.join(QUANTITY_UNITS)}")
-    values, names, watts = [], [], []
+    values, names, watts, angles = [], [], [], []
     for k, lamp in enumerate(lamps):
         label = f"lamps[{k}]"
         if not isinstance(lamp, dict) or not isinstance(lamp.get("name"), str) or not lamp["name"]:
@@ -65,12 +65,17 @@ def read_spectra_json(text, path="<json>", *, quantity=None):
         w = lamp.get("electrical_W")
         if w is not None and (isinstance(w, bool) or not isinstance(w, (int, float)) or not w > 0):
             raise where(f"{label}.electrical_W must be a positive number of watts, got {w!r}")
+        a = lamp.get("angle_deg")
+        if a is not None and (isinstance(a, bool) or not isinstance(a, (int, float)) or not math.isfinite(a)):
+            raise where(f"{label}.angle_deg must be a finite number of degrees, got {a!r}")
         values.append(v)
         names.append(lamp["name"])
         watts.append(np.nan if w is None else float(w))
+        angles.append(np.nan if a is None else float(a))
     return build_batch(
         wl, np.array(values), tuple(names), q, np.array(watts), path,
         [f"lamps[{k}]" for k in range(len(lamps))], [f"wavelength_nm[{i}]" for i in index], JsonWhere(where),
+        np.array(angles),
     )
 
 
@@ -81,8 +86,13 @@ def spectra_to_json(batch):
         "quantity": single_quantity(batch),
         "wavelength_nm": batch.wavelength_nm.tolist(),
         "lamps": [
-            {"name": name, "values": values.tolist(), **({"electrical_W": float(w)} if np.isfinite(w) else {})}
-            for name, values, w in zip(batch.names, batch.values, batch.electrical_W)
+            {
+                "name": name,
+                "values": values.tolist(),
+                **({"electrical_W": float(w)} if np.isfinite(w) else {}),
+                **({"angle_deg": float(a)} if np.isfinite(a) else {}),
+            }
+            for name, values, w, a in zip(batch.names, batch.values, batch.electrical_W, batch.angle_deg)
         ],
     }
     return json.dumps(doc, indent=1) + "\n"

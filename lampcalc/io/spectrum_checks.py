@@ -106,7 +106,7 @@ def check_values(values, wl_nm, names, columns, lines, where):
     return np.clip(values, 0.0, None), flags
 
 
-def build_batch(wl, values, names, quantity, watts, path, columns, lines, where):
+def build_batch(wl, values, names, quantity, watts, path, columns, lines, where, angles=None):
     """Checks shared by both file forms, then the batch."""
     values, flags = check_values(values, wl, names, columns, lines, where)
     seen = {}
@@ -122,6 +122,7 @@ def build_batch(wl, values, names, quantity, watts, path, columns, lines, where)
         sources=tuple(f"{Path(path).name}, column {c}" for c in columns),
         electrical_W=watts,
         flags=flags,
+        angle_deg=angles,
     )
 
 

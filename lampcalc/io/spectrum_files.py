@@ -57,6 +57,10 @@ def spectra_to_csv(batch):
         if not np.all(np.isfinite(batch.electrical_W)):
             raise ValueError("electrical_W is known for some lamps only; the CSV form needs all or none")
         lines.append("# electrical_W: " + " ".join(repr(float(w)) for w in batch.electrical_W))
+    if np.any(np.isfinite(batch.angle_deg)):
+        if not np.all(np.isfinite(batch.angle_deg)):
+            raise ValueError("angle_deg is known for some lamps only; the CSV form needs all or none")
+        lines.append("# angle_deg: " + " ".join(repr(float(a)) for a in batch.angle_deg))
     for name in batch.names:
         if any(ch in name for ch in ',"\n'):
             raise ValueError(f"lamp name {name!r} cannot be written to CSV (comma, quote or newline)")

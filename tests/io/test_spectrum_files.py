@@ -155,13 +155,15 @@ names = st.text(alphabet="ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz01
     st.lists(names.map(str.strip).filter(bool), min_size=1, max_size=4, unique=True),
     st.integers(min_value=0, max_value=2**31),
     st.sampled_from(["relative", "flux", "irradiance", "radiance"]),
+    st.booleans(),
 )
-def test_round_trip_csv_and_json(tmp_path_factory, lamp_names, seed, quantity):
+def test_round_trip_csv_and_json(tmp_path_factory, lamp_names, seed, quantity, with_angles):
     rng = np.random.default_rng(seed)
     wl = np.sort(rng.choice(np.arange(350.0, 1001.0, 0.5), 120, replace=False))
     values = rng.random((len(lamp_names), wl.size)) + 0.01
     watts = rng.uniform(1, 100, len(lamp_names))
-    batch = SpectralBatch(wl, values, tuple(lamp_names), quantity, electrical_W=watts)
+    angles = rng.uniform(-90, 90, len(lamp_names)) if with_angles else None
+    batch = SpectralBatch(wl, values, tuple(lamp_names), quantity, electrical_W=watts, angle_deg=angles)
     folder = tmp_path_factory.mktemp("rt")
     for name, text in (("b.csv", spectra_to_csv(batch)), ("b.json", spectra_to_json(batch))):
         (folder / name).write_text(text, encoding="utf-8")
@@ -169,9 +171,20 @@ def test_round_trip_csv_and_json(tmp_path_factory, lamp_names, seed, quantity):
         np.testing.assert_array_equal(back.wavelength_nm, wl)
         np.testing.assert_array_equal(back.values, values)
         np.testing.assert_array_equal(back.electrical_W, watts)
+        np.testing.assert_array_equal(back.angle_deg, batch.angle_deg)
         assert back.names == batch.names and back.quantity == batch.quantity
 
 
 def test_text_reader_override_quantity():
     batch = read_spectra_text("quantity: flux\n380,1\n780,1\n", quantity="irradiance")
     assert batch.quantity == ("irradiance",)
+
+
+def test_angle_metadata_one_per_lamp_or_one_for_all():
+    batch = read_spectra_text("# angle_deg: -30 0 30\nnm,a,b,c\n380,1,2,3\n780,1,2,3\n")
+    assert batch.angle_deg.tolist() == [-30.0, 0.0, 30.0]
+    assert read_spectra_text("angle_deg: 45\n380,1,2\n780,1,2\n").angle_deg.tolist() == [45.0, 45.0]
+    with pytest.raises(InputError, match="line 1: angle_deg needs one value or one per lamp"):
+        read_spectra_text("angle_deg: 1 2\n380,1,2,3\n780,1,2,3\n")
+    with pytest.raises(InputError, match="angle_deg 'up' is not a number"):
+        read_spectra_text("angle_deg: up\n380,1\n780,1\n")
