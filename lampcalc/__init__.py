@@ -79,7 +79,9 @@ _EXPORTS = {
     "circle_steps": "standards.steps",
     "read_claims": "verdicts.claims",
     "check_claims": "verdicts.claims",
-    "write_report": "report.pdf",
+    "write_report": "report.document",
+    "read_report_info": "report.report_info",
+    "ReportInfo": "report.report_info",
 }
 
 __all__ = sorted(_EXPORTS)

@@ -11,7 +11,9 @@ from .common import (
     collect_files,
     fail_on_input_errors,
     rate_batches,
+    read_report_options,
     read_some,
+    report_options,
     spectrum_options,
     write_outputs,
 )
@@ -19,7 +21,7 @@ from .printouts import TABLE_NOTES, rating_table, verdict_text
 
 
 def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_out=None, steps="ellipse",
-                    centre="ansi", quiet_table=False, **reading):
+                    centre="ansi", quiet_table=False, report_info=None, paper="a4", **reading):
     """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2) and the ratings."""
     from ..verdicts.claims import check_claims, read_claims
 
@@ -31,9 +33,9 @@ def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_o
     if not quiet_table:
         click.echo(rating_table(ratings))
         click.echo(TABLE_NOTES + "\n")
-    click.echo(verdict_text(verdicts))
+    click.echo(verdict_text(verdicts, ratings))
     click.echo("\n" + verdicts.summary())
-    write_outputs(ratings, verdicts, json_out, csv_out, report_out)
+    write_outputs(ratings, verdicts, json_out, csv_out, report_out, report_info, paper)
     click.echo(CAUTION)
     if errors:
         click.echo(f"lampcalc: {len(errors)} of {len(files)} spectrum files could not be read", err=True)
@@ -58,19 +60,21 @@ def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_o
     "--centre", type=click.Choice(["ansi", "iec"]), default="ansi", show_default=True,
     help="Centre of the steps: ANSI C78.377 target of the nominal CCT, or the IEC 60081 colour centre.",
 )
+@report_options
 @spectrum_options
 @fail_on_input_errors
-def check(paths, claims_path, json_out, csv_out, report_out, steps, centre, recursive, **reading):
+def check(paths, claims_path, json_out, csv_out, report_out, steps, centre, report_info, paper, recursive, **reading):
     """Check a supplier's claims against the spectra: one verdict per claim.
 
     Exit status 0 when every claim holds, 1 when any does not (or cannot be shown to),
     2 for bad input.
     """
+    info = read_report_options(report_out, report_info, paper)
     files = collect_files(paths, recursive)
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
     status, _ = check_and_write(
         files, claims_path, json_out=json_out, csv_out=csv_out, report_out=report_out, steps=steps, centre=centre,
-        **reading,
+        report_info=info, paper=paper, **reading,
     )
     sys.exit(status)

@@ -175,19 +175,43 @@ def spectrum_options(fn):
     return fn
 
 
-def write_report_file(path, ratings, verdicts=None):
-    from ..report.pdf import write_report
+def report_options(fn):
+    """``--report-info FILE`` and ``--paper``: what a command that writes a report also takes."""
+    fn = click.option(
+        "--paper", type=click.Choice(["a4", "letter"]), default="a4", show_default=True,
+        help="Paper of the report: A4 or US Letter.",
+    )(fn)
+    return click.option(
+        "--report-info", "report_info", type=click.Path(exists=True, dir_okay=False), default=None, metavar="FILE",
+        help="TOML file of the report's title, client, project, laboratory, report_number, date, prepared_by, notes.",
+    )(fn)
 
-    n_pages = len(ratings) + 2
+
+def read_report_options(report_out, report_info, paper):
+    """The report's information, read before any other work; refused without --report."""
+    source = click.get_current_context().get_parameter_source("paper")
+    if report_out is None and (report_info or source == click.core.ParameterSource.COMMANDLINE):
+        raise Failure("--report-info and --paper describe the PDF report: add --report FILE")
+    if report_info is None:
+        return None
+    from ..report.report_info import read_report_info
+
+    return read_report_info(report_info)
+
+
+def write_report_file(path, ratings, verdicts=None, report_info=None, paper="a4"):
+    from ..report.document import Report
+
+    report = Report(ratings, verdicts, info=report_info, paper=paper)
     if sys.stderr.isatty():
-        with click.progressbar(length=n_pages, label="writing report", file=sys.stderr) as bar:
-            pages = write_report(path, ratings, verdicts, progress=bar.update)
+        with click.progressbar(length=report.n_pages, label="writing report", file=sys.stderr) as bar:
+            pages = report.write(path, progress=bar.update)
     else:
-        pages = write_report(path, ratings, verdicts)
+        pages = report.write(path)
     click.echo(f"wrote {path} ({pages} pages)", err=True)
 
 
-def write_outputs(ratings, verdicts, json_out, csv_out, report_out):
+def write_outputs(ratings, verdicts, json_out, csv_out, report_out, report_info=None, paper="a4"):
     """The files a command was asked for: JSON and CSV of the verdicts (else the ratings), the report."""
     table = verdicts or ratings
     for path, text in ((json_out, table.to_json), (csv_out, table.to_csv)):
@@ -195,4 +219,4 @@ def write_outputs(ratings, verdicts, json_out, csv_out, report_out):
             write_text(path, text())
             click.echo(f"wrote {path}", err=True)
     if report_out:
-        write_report_file(report_out, ratings, verdicts)
+        write_report_file(report_out, ratings, verdicts, report_info, paper)
