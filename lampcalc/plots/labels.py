@@ -94,10 +94,15 @@ def _overlaps(boxes, others):
 
 
 def _text_boxes(ax, renderer):
+    """Boxes of the texts in ``ax`` (of the words only: a leader line is a segment, not a box) and its legend."""
+    from matplotlib.text import Text
+
     boxes = []
     for text in ax.texts:
         if text.get_visible() and text.get_text():
-            b = text.get_window_extent(renderer)
+            if hasattr(text, "update_positions"):
+                text.update_positions(renderer)
+            b = Text.get_window_extent(text, renderer)
             boxes.append((b.x0, b.y0, b.x1, b.y1))
     legend = ax.get_legend()
     if legend is not None and legend.get_visible():
