@@ -26,7 +26,8 @@ def demo(out_dir):
     The supplier, Quillfen Lighting, and its lamps are invented; their spectra are made
     from physical models. Some of its claims are false on purpose.
     """
-    from ..io.demo_data import demo_claims, demo_files
+    from ..io.demo_data import demo_claims, demo_files, demo_report_info
+    from ..report.report_info import read_report_info
 
     out = Path(out_dir)
     out.mkdir(parents=True, exist_ok=True)
@@ -37,7 +38,7 @@ def demo(out_dir):
     click.echo(f"\nChecking the supplier's claims ({demo_claims().name}):\n")
     status, ratings = check_and_write(
         files, demo_claims(), json_out=out / "checks.json", csv_out=out / "checks.csv",
-        report_out=out / "report.pdf", quiet_table=True,
+        report_out=out / "report.pdf", quiet_table=True, report_info=read_report_info(demo_report_info()),
     )
     if status == 2:
         sys.exit(2)

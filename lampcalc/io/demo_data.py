@@ -22,3 +22,8 @@ def demo_files():
 def demo_claims():
     """The fictional supplier's claims file."""
     return demo_folder() / "claims_quillfen.csv"
+
+
+def demo_report_info():
+    """The report information of the demo's report (a TOML file)."""
+    return demo_folder() / "report_info_quillfen.toml"

@@ -142,7 +142,7 @@ class MethodsPage:
         pages, width = self._layout(report)
         for k, blocks in enumerate(pages):
             title = "Methods and cautions" + (", continued" if k else "")
-            with sheet.page("methods", title, report.info.heading) as page:
+            with sheet.page("methods", title, "What was computed, by which method and edition; what to heed") as page:
                 y = sheet.top
                 for head, text, colour in blocks:
                     paragraph(page, sheet.left, y, head, HEAD_MM - 3, size=7.5, weight="bold", color=colour)

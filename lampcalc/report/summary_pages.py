@@ -52,10 +52,23 @@ def _row(number, record, verdict, letters):
 
 
 def _overview(report):
+    """The verdict in a sentence (bold) and the counts behind it."""
     n = len(report.records)
     if report.verdicts is None:
-        return f"{n} lamp{'s' if n != 1 else ''} rated. No claims were checked."
-    return count_line(report.verdicts) + "."
+        return f"{n} lamp{'s' if n != 1 else ''} rated; no claims were checked.", ""
+    status = [lamp_status(v) for v in report.verdicts.lamps]
+    claimed, failed, open_ = len(status), status.count(False), status.count(None)
+    if failed:
+        lead = f"{failed} of {claimed} lamps with claims do not meet every claim."
+    elif open_:
+        lead = f"No claim is shown to fail, but {open_} of {claimed} lamps have claims that could not be evaluated."
+    else:
+        lead = f"All {claimed} lamps with claims meet every claim."
+    return lead, count_line(report.verdicts) + "."
+
+
+def _info_columns(items):
+    return items[: (len(items) + 1) // 2], items[(len(items) + 1) // 2:]
 
 
 class SummaryPages:
@@ -92,9 +105,11 @@ class SummaryPages:
 
     def _opening_height(self, report, width):
         half = width / 2 - 4
-        info = key_values_height([(k, v) for k, v in report.info.items()], half - 24)
+        info = max((key_values_height(column, half - 24) for column in _info_columns(report.info.items())), default=0)
         notes = paragraph_height(report.info.notes, width, size=7) + 2 if report.info.notes else 0.0
-        return info / 2 + 6 + notes + paragraph_height(_overview(report), width, size=8, weight="bold") + 4
+        lead, counts = _overview(report)
+        return (info + 3 if info else 0) + notes + paragraph_height(lead, width, size=8.5, weight="bold") + 1 + (
+            paragraph_height(counts, width, size=7) if counts else 0) + 3
 
     def _legend(self, report, letters, start, end, width):
         flags = {f for r in report.records[start:end] for f in r.get("flags") or ()}
@@ -124,18 +139,20 @@ class SummaryPages:
                 self._diagram(page, report, sheet, y + 3, start, end)
 
     def _opening(self, page, report, sheet, y):
-        items = [(k, v) for k, v in report.info.items()]
         half = sheet.width / 2 - 4
-        left, right = items[: (len(items) + 1) // 2], items[(len(items) + 1) // 2:]
+        left, right = _info_columns(report.info.items())
         height = max(key_values(page, sheet.left, y, left, 24, half - 24),
-                     key_values(page, sheet.left + sheet.width / 2, y, right, 24, half - 24)) if items else 0.0
-        y += height + (3 if items else 0)
+                     key_values(page, sheet.left + sheet.width / 2, y, right, 24, half - 24))
+        y += height + (3 if height else 0)
         if report.info.notes:
             y += paragraph(page, sheet.left, y, report.info.notes, sheet.width, size=7) + 2
         status = [lamp_status(v) for v in report.lamp_verdicts if v is not None]
+        lead, counts = _overview(report)
         colour = LAMP if False in status or None in status else INK
-        y += paragraph(page, sheet.left, y, _overview(report), sheet.width, size=8, weight="bold", color=colour) + 3
-        return y
+        y += paragraph(page, sheet.left, y, lead, sheet.width, size=8.5, weight="bold", color=colour) + 1
+        if counts:
+            y += paragraph(page, sheet.left, y, counts, sheet.width, size=7)
+        return y + 3
 
     def _diagram(self, page, report, sheet, y, start, end):
         bottom = sheet.bottom - line_mm(6) * 2 - 1

@@ -9,6 +9,7 @@ def test_the_verdict_comes_first_and_tells_fail_from_not_evaluated(demo_report, 
     _, verdicts = demo_check
     _, pages = demo_report
     first = " ".join(pages[0].split())
+    assert "3 of 8 lamps with claims do not meet every claim." in first  # the demo's planted false claims
     assert " ".join((count_line(verdicts) + ".").split()) in first
     assert "1 of 9 not met" in first  # QF-DL-4000's efficacy claim (the demo supplier's planted false claim)
     assert "fail" not in first
