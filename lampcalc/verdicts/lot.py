@@ -61,6 +61,8 @@ SPREAD_KEYS = (
 #: Columns of the per-sample table, in output order.
 SAMPLE_COLUMNS = ("name", "source", "x", "y", "u_prime", "v_prime", "cct_K", "duv", "ra", "r9", "rf", "rg",
                   "sdcm_steps", "delta_uv_prime_from_mean", "ansi_nominal_cct_K", "flags")
+#: Beyond this |Duv| CIE 015:2018 advises against a CCT: a lot there has no centre of its own.
+WHITE_DUV = 0.05
 _DOUBT_SOURCE = {"r9": "ri"}  # a rating taken from a list column is doubtful when that column is
 _BOUNDARY_POINTS = 3601  # points on the covariance ellipse when it is measured in steps
 
@@ -79,7 +81,8 @@ def lot_centre(mean_xy, nominal_cct_K=None):
     -------
     nominal_cct_K : float
         The claimed nominal CCT; else the ANSI C78.377-2017 category nearest the mean point;
-        NaN when the mean point has no CCT (no white light, so no centre).
+        NaN when the mean point has no CCT or lies more than :data:`WHITE_DUV` from the
+        Planckian locus (no white light, so no centre).
     chosen : {"claimed", "nearest category", "none"}
 
     Raises
@@ -90,8 +93,8 @@ def lot_centre(mean_xy, nominal_cct_K=None):
     if nominal_cct_K is not None and np.isfinite(nominal_cct_K):
         category(nominal_cct_K)
         return float(nominal_cct_K), "claimed"
-    cct, _, _ = locate(xy_to_uv(mean_xy))
-    if not np.isfinite(cct):
+    cct, duv, _ = locate(xy_to_uv(mean_xy))
+    if not (np.isfinite(cct) and abs(duv) <= WHITE_DUV):
         return float("nan"), "none"
     return float(classify(np.asarray(mean_xy)[None])["nearest_nominal_cct_K"][0]), "nearest category"
 
