@@ -91,3 +91,13 @@ def test_spectra_without_angle_are_refused():
     assert has_angles(ratings)
     with pytest.raises(InputError, match="non-negative"):
         colour_over_angle(ratings, limit_delta_uv_prime=-0.001)
+
+
+def test_every_output_key_is_documented():
+    import re
+    from pathlib import Path
+
+    doc = (Path(__file__).resolve().parents[2] / "docs" / "output-fields.md").read_text(encoding="utf-8")
+    named = set(re.findall(r"`([A-Za-z_0-9]+)`", doc))
+    result = colour_over_angle(_rated()[0], limit_delta_uv_prime=0.01)
+    assert set(result) - named == set() and set(result["angles"]) - named == set()

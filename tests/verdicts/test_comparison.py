@@ -97,3 +97,16 @@ def test_normalised_spectra_have_equal_luminous_quantity_and_their_ratio():
     np.testing.assert_allclose(ratio[valid], (b / a)[valid], rtol=1e-12)
     same = normalised_spectra(ref, 5.0 * ref)[2]
     np.testing.assert_allclose(same[np.isfinite(same)], 1.0, rtol=1e-12)
+
+
+def test_every_output_key_is_documented():
+    import re
+    from pathlib import Path
+
+    doc = (Path(__file__).resolve().parents[2] / "docs" / "output-fields.md").read_text(encoding="utf-8")
+    named = set(re.findall(r"`([A-Za-z_0-9]+)`", doc))
+    ratings = _rate([3000.0], ["a"])
+    keys = set(compare_ratings(ratings, ratings)["pairs"])
+    per_rating = {f"{side}_{key}" for key in COMPARED for side in ("reference", "test", "delta")}
+    assert set(COMPARED) - named == set()
+    assert keys - per_rating - named == set()

@@ -197,3 +197,20 @@ def test_lot_of_rated_planckian_spectra():
     assert abs(lot["duv_mean"]) < 1e-5
     upvp = colour.xy_to_Luv_uv(np.stack([ratings["x"], ratings["y"]], -1))  # colour-science
     assert lot["max_pairwise_delta_uv_prime"] == pytest.approx(np.hypot(*(upvp[0] - upvp[-1])), rel=1e-9)
+
+
+def test_every_output_key_is_documented(invent, around):
+    # docs/output-fields.md names every key (the per-rating keys through the list of ratings).
+    import re
+    from pathlib import Path
+
+    doc = (Path(__file__).resolve().parents[2] / "docs" / "output-fields.md").read_text(encoding="utf-8")
+    named = set(re.findall(r"`([A-Za-z_0-9]+)`", doc))
+    lot = lot_statistics(invent(around(ANSI_3000)), nominal_cct_K=3000)
+    ratings = [r for r in LOT_RATINGS if r in named]
+    assert ratings == list(LOT_RATINGS)
+    per_rating = {f"{r}_{s}" for r in LOT_RATINGS for s in ("n", "mean", "sd", "min", "max", "p05", "p95")}
+    within = {f"within_{k}_steps_percent" for k in range(1, 8)}
+    undocumented = set(lot) - named - per_rating - within - {"samples"}
+    assert undocumented == set()
+    assert set(lot["samples"]) <= named
