@@ -1,34 +1,15 @@
 """What ``lampcalc compare`` shows: the colour shift of each pair, and every rating of one pair."""
 
-from ..rating.flags import doubtful_keys, explain
+from ..rating.flags import doubtful_keys
 from .common import flagged, fmt
+from .lot_printouts import RATING_LABELS, flag_lines, is_doubtful
 from .printouts import RESULT
 from .text_table import format_table
 
-#: Compared rating -> (label, unit, format) for the detailed table of one pair.
-COMPARED_LABELS = {
-    "x": ("x", "", ".5f"),
-    "y": ("y", "", ".5f"),
-    "u_prime": ("u'", "", ".5f"),
-    "v_prime": ("v'", "", ".5f"),
-    "cct_K": ("CCT", "K", ".0f"),
-    "duv": ("Duv", "", "+.4f"),
-    "peak_nm": ("peak", "nm", ".0f"),
-    "ra": ("Ra", "", ".1f"),
-    "r9": ("R9", "", ".1f"),
-    "rf": ("Rf", "", ".1f"),
-    "rg": ("Rg", "", ".1f"),
-    "ler_lm_per_W": ("LER", "lm/W", ".1f"),
-    "luminous_flux_lm": ("luminous flux", "lm", ".1f"),
-    "illuminance_lx": ("illuminance", "lx", ".1f"),
-    "luminance_cd_per_m2": ("luminance", "cd/m2", ".1f"),
-    "efficacy_lm_per_W": ("lamp efficacy", "lm/W", ".1f"),
-    "sp_ratio": ("S/P", "", ".3f"),
-    "melanopic_der": ("mel-DER", "", ".3f"),
-    "melanopic_edi_lx": ("mel-EDI", "lx", ".1f"),
-}
-#: Where a rating's doubt comes from (a flag names the list column it is taken from).
-_DOUBT_SOURCE = {"r9": "ri"}
+#: Ratings in the detailed table of one pair, in order (labels from :data:`RATING_LABELS`).
+DETAIL_KEYS = ("x", "y", "u_prime", "v_prime", "cct_K", "duv", "peak_nm", "ra", "r9", "rf", "rg", "ler_lm_per_W",
+               "luminous_flux_lm", "illuminance_lx", "luminance_cd_per_m2", "efficacy_lm_per_W", "sp_ratio",
+               "melanopic_der", "melanopic_edi_lx")
 
 
 def pairs_table(comparison):
@@ -40,7 +21,7 @@ def pairs_table(comparison):
         rows.append([
             p["reference_name"][k], p["test_name"][k], fmt(p["delta_uv_prime"][k], ".5f"),
             fmt(p["delta_cct_K"][k], "+.0f"), fmt(p["delta_duv"][k], "+.4f"),
-            *(flagged(p[f"delta_{key}"][k], "+.1f", _DOUBT_SOURCE.get(key, key) in doubt) for key in ("ra", "r9", "rf", "rg")),
+            *(flagged(p[f"delta_{key}"][k], "+.1f", is_doubtful(key, doubt)) for key in ("ra", "r9", "rf", "rg")),
             fmt(p["luminous_ratio"][k], ".3f"), RESULT[p["pass"][k]] if p["pass"][k] is not None else "-",
         ])
     headers = ["reference", "test", "Δu'v'", "ΔCCT K", "ΔDuv", "ΔRa", "ΔR9", "ΔRf", "ΔRg", "luminous ratio", "result"]
@@ -64,19 +45,17 @@ def pair_detail(comparison, k=0):
     p = comparison["pairs"]
     doubt = doubtful_keys(p["reference_flags"][k]) | doubtful_keys(p["test_flags"][k])
     rows = []
-    for key, (label, unit, spec) in COMPARED_LABELS.items():
+    for key in DETAIL_KEYS:
+        label, unit, spec = RATING_LABELS[key]
         ref, test = p[f"reference_{key}"][k], p[f"test_{key}"][k]
         if ref != ref and test != test:  # NaN on both sides: not a rating of these spectra
             continue
-        bad = _DOUBT_SOURCE.get(key, key) in doubt
+        bad = is_doubtful(key, doubt)
         delta_spec = spec if spec.startswith("+") else "+" + spec
         rows.append([label, unit, flagged(ref, spec, bad), flagged(test, spec, bad), flagged(p[f"delta_{key}"][k], delta_spec, bad)])
     head = f"{p['reference_name'][k]} (reference) and {p['test_name'][k]} (test): Δu'v' = {p['delta_uv_prime'][k]:.5f}"
     lines = [head, format_table(["rating", "unit", "reference", "test", "difference"], rows, "llrrr")]
-    for side in ("reference", "test"):
-        flags = p[f"{side}_flags"][k]
+    for side, flags in (("reference", p["reference_flags"][k]), ("test", p["test_flags"][k]), ("pair", p["flags"][k])):
         if flags:
-            lines.append(f"{side} flags:\n" + "\n".join(f"  {f}: {explain(f)}" for f in flags))
-    if p["flags"][k]:
-        lines.append("pair flags:\n" + "\n".join(f"  {f}: {explain(f)}" for f in p["flags"][k]))
+            lines.append(f"{side} flags:\n" + flag_lines(flags))
     return "\n".join(lines)

@@ -1,15 +1,21 @@
 """What ``lampcalc lot`` shows: the lot's colour, its ratings' statistics, colour over angle, lot claims."""
 
 from ..rating.flags import explain
+from ..verdicts.lot import DOUBT_SOURCE, LOT_RATINGS
 from ..verdicts.lot_claims import MEMORY_NOTE
 from .common import flagged, fmt
 from .printouts import RESULT
 from .text_table import format_table
 
-#: Lot rating -> (label, unit, format) for the statistics table.
+#: Rating -> (label, unit, format) in the lot's and the comparison's tables.
 RATING_LABELS = {
+    "x": ("x", "", ".5f"),
+    "y": ("y", "", ".5f"),
+    "u_prime": ("u'", "", ".5f"),
+    "v_prime": ("v'", "", ".5f"),
     "cct_K": ("CCT", "K", ".0f"),
     "duv": ("Duv", "", "+.4f"),
+    "peak_nm": ("peak", "nm", ".0f"),
     "ra": ("Ra", "", ".1f"),
     "r9": ("R9", "", ".1f"),
     "rf": ("Rf", "", ".1f"),
@@ -25,6 +31,11 @@ RATING_LABELS = {
     "melanopic_edi_lx": ("mel-EDI", "lx", ".1f"),
     "sdcm_steps": ("steps from centre", "steps", ".2f"),
 }
+
+
+def is_doubtful(key, doubt):
+    """Whether a rating is doubtful, given the set of doubtful output keys (R9 follows ``ri``)."""
+    return DOUBT_SOURCE.get(key, key) in doubt
 
 
 def flag_lines(flags, lot=None):
@@ -88,7 +99,8 @@ def _ellipse_text(s):
 def statistics_table(lot):
     """One row per rating with values: n, mean, sd, min, 5th and 95th percentile, max."""
     rows = []
-    for key, (label, unit, spec) in RATING_LABELS.items():
+    for key in LOT_RATINGS:
+        label, unit, spec = RATING_LABELS[key]
         if not lot[f"{key}_n"]:
             continue
         doubt = key in lot["doubtful_ratings"]

@@ -59,7 +59,8 @@ def draw_lot_diagram(ax, lot, *, space="xy", title=None):
     half_width = max(0.006 if space == "xy" else 0.004, 0.62 * float(np.max(hi - lo)))
     middle = (lo + hi) / 2
     draw_chromaticity_diagram(ax, space=space, zoom=True, around_xy=SPACES_INVERSE[space](middle), half_width=half_width,
-                              title=title or f"Lot of {lot['n_samples']} samples: {SPACES[space][2]}")
+                              title=title or f"Lot of {lot['n_samples']} sample{'s' if lot['n_samples'] != 1 else ''}: "
+                              f"{SPACES[space][2]}")
     if has_centre:
         for n in _rings(lot):
             ring = to_space(steps_ring_xy(centre, lot["steps_centre_nominal_cct_K"], n, lot["steps_method"]))
@@ -95,6 +96,10 @@ def draw_lot_histogram(ax, lot, key):
         ax.text(0.5, 0.5, f"no {label} for these spectra", transform=ax.transAxes, ha="center", color=MUTED)
         return ax
     bins = min(12, max(4, int(np.ceil(np.sqrt(values.size)))))
+    spread = np.ptp(values)
+    if spread == 0:  # one value (or all alike): one bar centred on it
+        half = max(abs(values[0]) * 1e-3, 1e-4)
+        bins = [values[0] - half, values[0] + half]
     counts, _, _ = ax.hist(values, bins=bins, color=LAMP, alpha=0.75, edgecolor="white", linewidth=0.6,
                            gid=f"histogram:{key}")
     mean, p05, p95 = lot[f"{key}_mean"], lot[f"{key}_p05"], lot[f"{key}_p95"]
@@ -107,6 +112,10 @@ def draw_lot_histogram(ax, lot, key):
     sd_text = f", sd {format(sd, spec.replace('+', ''))}{unit_text}" if np.isfinite(sd) else ""
     ax.set_title(f"{label}: n = {values.size}, mean {format(mean, spec)}{unit_text}{sd_text}{doubt}", loc="left")
     ax.set_ylim(0, max(counts) * 1.45)
+    if spread == 0:
+        ax.set_xlim(values[0] - 8 * half, values[0] + 8 * half)
+    ax.ticklabel_format(axis="x", useOffset=False)
+    ax.locator_params(axis="x", nbins=5)
     ax.yaxis.get_major_locator().set_params(integer=True)
     ax.grid(True, axis="y")
     ax.legend(loc="upper right", ncol=2, handlelength=1.6, columnspacing=1.0, frameon=True, framealpha=0.9,
@@ -126,6 +135,7 @@ def lot_histograms_figure(lot):
     fig = new_figure((6.3, 5.2))
     for k, key in enumerate(HISTOGRAMS):
         draw_lot_histogram(fig.add_subplot(2, 2, k + 1), lot, key)
-    fig.suptitle(f"Lot of {lot['n_samples']} samples: ratings", x=0.02, ha="left", fontsize=9.5)
+    n = lot["n_samples"]
+    fig.suptitle(f"Lot of {n} sample{'s' if n != 1 else ''}: ratings", x=0.02, ha="left", fontsize=9.5)
     return fig
 

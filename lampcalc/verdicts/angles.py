@@ -6,11 +6,11 @@ file's ``angle_deg`` metadata). :func:`colour_over_angle` gives, for every angle
 largest Δu′v′, at which angle, and a verdict against a limit the user gives.
 
 The mean point is weighted by light when the spectra are absolute: each angle's u′, v′
-counts in proportion to its luminous quantity Km·Σ V(λ)·S(λ)·Δλ (illuminance at the
-detector, luminous intensity's stand-in on a goniometer of fixed distance; or luminous flux or
-luminance), so the mean is the colour where the light is. Relative spectra carry no such
-weight, and every angle counts the same. ``angle_weighting`` says which was used. Angles are
-taken as measured: no solid-angle (zonal) weighting is applied.
+counts in proportion to its luminous quantity Km·Σ V(λ)·S(λ)·Δλ (the illuminance at the
+detector of a goniometer at fixed distance, which is proportional to the luminous intensity;
+or luminous flux, or luminance), so the mean is the colour where the light is. Relative
+spectra carry no such weight, and every angle counts the same. ``angle_weighting`` says which
+was used. Angles are taken as measured: no solid-angle (zonal) weighting is applied.
 
 There is no limit by default. ``docs/lots.md`` names the published criteria we know of.
 """

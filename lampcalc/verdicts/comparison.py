@@ -149,9 +149,10 @@ def normalised_spectra(reference_values, test_values, reference_range_nm=None, t
     ref = np.asarray(reference_values, dtype=float)
     tst = np.asarray(test_values, dtype=float)
     v = luminous_efficiency()
-    tst = tst * ((ref @ v) / (tst @ v))[..., None]
-    peak = ref.max(axis=-1, keepdims=True)
-    ref, tst = ref / peak, tst / peak
+    with np.errstate(invalid="ignore", divide="ignore"):  # a spectrum with no visible light has no equal-luminance copy
+        tst = tst * ((ref @ v) / (tst @ v))[..., None]
+        peak = ref.max(axis=-1, keepdims=True)
+        ref, tst = ref / peak, tst / peak
     valid = ref >= RATIO_FLOOR
     for rng in (reference_range_nm, test_range_nm):
         if rng is not None:

@@ -63,7 +63,8 @@ SAMPLE_COLUMNS = ("name", "source", "x", "y", "u_prime", "v_prime", "cct_K", "du
                   "sdcm_steps", "delta_uv_prime_from_mean", "ansi_nominal_cct_K", "flags")
 #: Beyond this |Duv| CIE 015:2018 advises against a CCT: a lot there has no centre of its own.
 WHITE_DUV = 0.05
-_DOUBT_SOURCE = {"r9": "ri"}  # a rating taken from a list column is doubtful when that column is
+#: A rating taken from a list column is doubtful when that column is (flags name ``ri``, not R9).
+DOUBT_SOURCE = {"r9": "ri"}
 _BOUNDARY_POINTS = 3601  # points on the covariance ellipse when it is measured in steps
 
 
@@ -180,14 +181,14 @@ def _ellipse_keys(xy, probability, nominal, point, method, flags):
 
 def _rating_keys(ratings, sample_steps, flags):
     n = len(ratings)
-    doubt = set().union(*(doubtful_keys(f) for f in ratings["flags"]))
+    doubt = set().union(*(doubtful_keys(f) for f in set(ratings["flags"])))  # each distinct set of flags once
     keys, doubtful, partial = {}, [], []
     for key in LOT_RATINGS:
         values = sample_steps if key == "sdcm_steps" else rating_values(ratings, key)
         stats = describe(values)
         for name in STATISTICS:
-            keys[f"{key}_{name}"] = int(stats[name]) if name == "n" else stats[name]
-        if stats["n"] and _DOUBT_SOURCE.get(key, key) in doubt:
+            keys[f"{key}_{name}"] = int(stats[name]) if name == "n" else float(stats[name])
+        if stats["n"] and DOUBT_SOURCE.get(key, key) in doubt:
             doubtful.append(key)
         if 0 < stats["n"] < n:
             partial.append(key)

@@ -242,14 +242,14 @@ def check_lot_claims(claims, lot):
         if claim.kind == "quantity":
             results.append(_check_quantity(claim, lot))
         elif claim.kind == "within_steps":
-            steps = np.asarray(samples["sdcm_steps"], dtype=float)
-            where = f"{lot['steps_method']} steps from the {lot['steps_centre'].upper()} centre of {centre:g} K"
             if not np.isfinite(centre):
                 label = f"at least {v['share_at_least_percent']:g} % within {v['within_steps']:g} steps"
                 results.append(_result(claim, label, v["share_at_least_percent"], None, None,
-                                       undecided="the lot has no centre (its mean point has no CCT)"))
+                                       undecided="the lot has no centre (its mean point is not white)"))
                 continue
-            note = where + (f"; {MEMORY_NOTE}" if lot["steps_method"] == "ellipse" else "")
+            steps = np.asarray(samples["sdcm_steps"], dtype=float)
+            note = f"{lot['steps_method']} steps from the {lot['steps_centre'].upper()} centre of {centre:g} K"
+            note += f"; {MEMORY_NOTE}" if lot["steps_method"] == "ellipse" else ""
             results.append(_share_result(claim, steps <= v["within_steps"], f"within {v['within_steps']:g} steps", note))
         else:
             nominal = v["inside_nominal_cct_K"]
