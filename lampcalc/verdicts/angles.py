@@ -89,6 +89,8 @@ def colour_over_angle(ratings, *, limit_delta_uv_prime=None):
     with np.errstate(invalid="ignore"):
         cct_range = (np.nanmin(cct), np.nanmax(cct)) if np.any(np.isfinite(cct)) else (np.nan, np.nan)
         duv_range = (np.nanmin(duv), np.nanmax(duv)) if np.any(np.isfinite(duv)) else (np.nan, np.nan)
+    columns = {"angle_deg": angle, "name": np.array(batch.names, dtype=object), "u_prime": upvp[:, 0],
+               "v_prime": upvp[:, 1], "cct_K": cct, "duv": duv, "delta_uv_prime": delta, "weight": weights}
     largest = float(delta[worst])
     margin = np.nan if limit_delta_uv_prime is None else limit_delta_uv_prime - largest
     return {
@@ -109,14 +111,5 @@ def colour_over_angle(ratings, *, limit_delta_uv_prime=None):
         "limit_delta_uv_prime": limit_delta_uv_prime,
         "angle_margin_delta_uv_prime": margin,
         "angle_pass": None if limit_delta_uv_prime is None else bool(margin >= 0),
-        "angles": {
-            "angle_deg": angle[order],
-            "name": tuple(batch.names[i] for i in order),
-            "u_prime": upvp[order, 0],
-            "v_prime": upvp[order, 1],
-            "cct_K": cct[order],
-            "duv": duv[order],
-            "delta_uv_prime": delta[order],
-            "weight": weights[order],
-        },
+        "angles": {key: columns[key][order] for key in ANGLE_COLUMNS},
     }

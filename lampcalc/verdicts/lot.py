@@ -267,15 +267,13 @@ def lot_statistics(ratings, *, nominal_cct_K=None, steps="ellipse", centre="ansi
     }
     out |= _rating_keys(ratings, sample_steps, flags)
     out["flags"] = flags
-    table = {key: rating_values(ratings, key) for key in ("x", "y", "u_prime", "v_prime", "cct_K", "duv", "ra", "r9",
-                                                         "rf", "rg")}
-    out["samples"] = {
+    columns = {
         "name": names,
         "source": tuple(ratings["source"]),
-        **table,
         "sdcm_steps": sample_steps,
         "delta_uv_prime_from_mean": from_mean,
         "ansi_nominal_cct_K": found,
         "flags": tuple(ratings["flags"]),
     }
+    out["samples"] = {k: columns[k] if k in columns else rating_values(ratings, k) for k in SAMPLE_COLUMNS}
     return out
