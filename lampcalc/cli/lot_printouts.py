@@ -2,7 +2,7 @@
 
 from ..rating.flags import explain
 from ..verdicts.lot import DOUBT_SOURCE, LOT_RATINGS
-from ..verdicts.lot_claims import MEMORY_NOTE
+from ..verdicts.lot_claims import STEPS_NOTES
 from .common import flagged, fmt
 from .printouts import RESULT
 from .text_table import format_table
@@ -64,7 +64,8 @@ def lot_text(lot, over_angle=False):
          f"Duv {fmt(s['mean_point_duv'], '+.4f')}"],
     ]
     if s["steps_centre_chosen"] != "none":
-        method = "IEC 60081 ellipses" if s["steps_method"] == "ellipse" else "CIE TN 001 u'v' circles"
+        method = ("IEC 60081 ellipses (metric not confirmed, see docs/claims.md)" if s["steps_method"] == "ellipse"
+                  else "CIE TN 001 u'v' circles (step not confirmed, see docs/claims.md)")
         rows.append(["centre", f"{s['steps_centre_nominal_cct_K']:g} K ({s['steps_centre_chosen']}), "
                      f"{s['steps_centre'].upper()} centre x {s['steps_centre_x']:.5f}, y {s['steps_centre_y']:.5f}; {method}"])
         shares = "  ".join(f"{k}: {s[f'within_{k}_steps_percent']:.0f} %" for k in range(1, 8))
@@ -137,15 +138,16 @@ def angle_text(angles):
 
 def lot_claims_text(verdicts):
     """The lot claims' verdicts: one row per claim, with the supplier's words; the note on the metric once, below."""
-    rows, footnote = [], False
+    rows, footnotes = [], set()
     for c in verdicts.checks:
         margin = "-" if c["margin"] is None else f"{c['margin']:+.4g}"
-        note = c["note"].replace(MEMORY_NOTE, "(*)")
-        footnote |= note != c["note"]
+        note = c["note"]
+        for text in STEPS_NOTES.values():
+            if text in note:
+                note, footnotes = note.replace(text, "(*)"), footnotes | {text}
         rows.append([c["text"] or "-", c["claim"], fmt(c["measured"], ".4g"), margin, RESULT[c["pass"]], note])
     head = "Lot claims" + (f" of {verdicts.product}" if verdicts.product else "")
     table = format_table(["the supplier says", "claim", "measured", "margin", "result", "note"], rows, "llrrll")
     lines = [f"{head}:", table, verdicts.summary()]
-    if footnote:
-        lines.append(f"(*) {MEMORY_NOTE}.")
+    lines += [f"(*) {text[0].upper()}{text[1:]}." for text in sorted(footnotes)]
     return "\n".join(lines)

@@ -45,7 +45,11 @@ KINDS = {
 }
 #: Lot numbers a ``quantity`` claim may name.
 CLAIMABLE = frozenset(SPREAD_KEYS) | {f"{r}_{s}" for r in LOT_RATINGS for s in STATISTICS}
-MEMORY_NOTE = "IEC 60081 ellipse metric reproduced from memory: confirm it against the standard before a dispute"
+#: What a steps verdict rests on that no published table here confirms, by steps method.
+STEPS_NOTES = {
+    "ellipse": "the IEC 60081 ellipse metric is not confirmed against the published table: confirm it before a dispute",
+    "circle": "the CIE TN 001 step (0.0011 in u′v′) is not confirmed against the published note: confirm it before a dispute",
+}
 
 
 @dataclass(frozen=True)
@@ -209,7 +213,7 @@ def _check_quantity(claim, lot):
         undecided = "some samples' values are outside the method's validity"
     elif rating in lot["partial_ratings"] and not v["quantity"].endswith("_n"):
         undecided = f"{rating} is missing for some samples"
-    note = MEMORY_NOTE if "steps" in v["quantity"] and lot["steps_method"] == "ellipse" else ""
+    note = STEPS_NOTES[lot["steps_method"]] if "steps" in v["quantity"] else ""
     sign = ">=" if v["bound"] == "at_least" else "<="
     return _result(claim, f"{v['quantity']} {sign} {v['claimed']:g}", v["claimed"], measured, margin, note, undecided)
 
@@ -249,13 +253,14 @@ def check_lot_claims(claims, lot):
                 continue
             steps = np.asarray(samples["sdcm_steps"], dtype=float)
             note = f"{lot['steps_method']} steps from the {lot['steps_centre'].upper()} centre of {centre:g} K"
-            note += f"; {MEMORY_NOTE}" if lot["steps_method"] == "ellipse" else ""
+            note += f"; {STEPS_NOTES[lot['steps_method']]}"
             results.append(_share_result(claim, steps <= v["within_steps"], f"within {v['within_steps']:g} steps", note))
         else:
             nominal = v["inside_nominal_cct_K"]
             xy = np.stack([samples["x"], samples["y"]], axis=-1)
             flexible = category(nominal).flexible
-            note = "flexible category: its CCT tolerance is reproduced from memory of the standard" if flexible else ""
+            note = ("flexible category: its CCT tolerance is not confirmed against the published standard" if flexible
+                    else "")
             results.append(_share_result(claim, quadrangle_margin(xy, nominal) >= 0, f"inside the {nominal:g} K quadrangle",
                                          note))
     return LotVerdicts(claims.product, results)

@@ -43,7 +43,7 @@ def test_demo_lot_writes_every_key_and_a_verdict(demo_lot):
     assert [c["pass"] for c in claims["checks"]] == [False, True, True, True]
     assert "colour_over_angle" not in doc
     assert "Lot claims of QF-SPOT-3000" in result.output and "FAILS" in result.output
-    assert "IEC 60081 ellipse metric reproduced from memory" in result.output
+    assert "(*) The IEC 60081 ellipse metric is not confirmed against the published table" in result.output
 
 
 def test_demo_lot_csv_is_one_row_of_the_summary(demo_lot):

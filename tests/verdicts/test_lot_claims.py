@@ -9,7 +9,7 @@ import pytest
 
 from lampcalc.errors import InputError
 from lampcalc.verdicts.lot import lot_statistics
-from lampcalc.verdicts.lot_claims import MEMORY_NOTE, check_lot_claims, read_lot_claims
+from lampcalc.verdicts.lot_claims import STEPS_NOTES, check_lot_claims, read_lot_claims
 
 ANSI_3000 = (0.4339, 0.4033)  # REFERENCE_VALUES.md, ANSI C78.377-2017 3000 K centre
 
@@ -62,7 +62,7 @@ def test_verdicts_against_direct_counts(invent, write):
     share, mean, low, pairwise, inside = verdicts.checks
     assert share["measured"] == pytest.approx(100 * 10 / 12) and share["pass"] is False  # 10 of 12 within 3 steps
     assert share["margin"] == pytest.approx(100 * 10 / 12 - 95)
-    assert "10 of 12 samples within 3 steps" in share["note"] and MEMORY_NOTE in share["note"]
+    assert "10 of 12 samples within 3 steps" in share["note"] and STEPS_NOTES["ellipse"] in share["note"]
     assert mean["measured"] == pytest.approx(np.mean(ra)) and mean["pass"] is bool(np.mean(ra) >= 90)
     assert low["measured"] == 79.0 and low["margin"] == -1.0 and low["pass"] is False
     import colour
