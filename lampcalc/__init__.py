@@ -1,7 +1,8 @@
 """lampcalc: rate measured lamp spectra.
 
-Chromaticity, CCT and Duv, colour rendering, photometric ratios, and checks against
-supplier claims and standard bins, computed for whole batches of spectra.
+Chromaticity, CCT and Duv, colour rendering, photometric ratios, checks against
+supplier claims and standard bins, and the statistics of lots, angles and comparisons,
+computed for whole batches of spectra.
 
 The public names below are loaded on first use, so ``import lampcalc`` costs almost
 nothing and the command line starts quickly; ``dir(lampcalc)`` lists them all.
@@ -79,6 +80,11 @@ _EXPORTS = {
     "circle_steps": "standards.steps",
     "read_claims": "verdicts.claims",
     "check_claims": "verdicts.claims",
+    "lot_statistics": "verdicts.lot",
+    "read_lot_claims": "verdicts.lot_claims",
+    "check_lot_claims": "verdicts.lot_claims",
+    "colour_over_angle": "verdicts.angles",
+    "compare_ratings": "verdicts.comparison",
     "write_report": "report.pdf",
 }
 

@@ -42,6 +42,8 @@ def demo(out_dir):
     if status == 2:
         sys.exit(2)
     demo_figures(ratings, out)
+    if demo_sets(out) == 2:
+        sys.exit(2)
     click.echo(f"\nResults in {out}/")
 
 
@@ -60,3 +62,22 @@ def demo_figures(ratings, out):
         for name, kind, lamps, options in jobs:
             save_figure(FIGURES[kind](ratings, lamps, **options), out / name)
             click.echo(f"wrote {out / name}", err=True)
+
+
+def demo_sets(out):
+    """A lot with its claims, one source over angle, a sample against its data sheet. Returns 2 on bad input."""
+    from ..io.demo_data import demo_folder, demo_lot_claims, demo_set
+    from .compare import compare_and_write
+    from .lot import lot_and_write
+
+    click.echo("\nA delivery of 12 lamps QF-SPOT-3000 (spectra_demo/lot/), with the supplier's claims on it:\n")
+    statuses = [lot_and_write(demo_set("lot"), claims_path=demo_lot_claims(), json_out=out / "lot.json",
+                              csv_out=out / "lot.csv", figures_dir=out / "lot")]
+    click.echo("\nOne downlight QF-DL-4000 from 0 to 80° (spectra_demo/angles/), against a limit of 0.004 Δu'v':\n")
+    statuses.append(lot_and_write(demo_set("angles"), limit=0.004, json_out=out / "angles.json", figures_dir=out / "angles"))
+    click.echo("\nA lamp QF-A60-2700-R9 of a delivery against its data-sheet spectrum (spectra_demo/datasheet/), "
+               "limit 0.003 Δu'v':\n")
+    folder = demo_folder() / "datasheet"
+    statuses.append(compare_and_write(folder / "quillfen_a60_2700_r9_datasheet.csv", folder / "quillfen_a60_2700_r9_sample.csv",
+                                      limit=0.003, json_out=out / "compare.json", figure_out=out / "compare_datasheet.png"))
+    return 2 if 2 in statuses else 0

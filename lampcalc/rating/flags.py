@@ -19,6 +19,13 @@ FLAG_MEANINGS = {
     "cri_outside_validity": "DC > 5.4e-3: Ra and Ri computed outside CIE 13.3's validity",
     "rendering_not_meaningful": "no CCT in range, hence no reference illuminant: Ra, Ri, Rf, Rg are null",
     "steps_metric_outside_iec_range": "steps counted with the nearest IEC 60081 metric (nominal CCT outside 2700–6500 K)",
+    # Lots, angles and comparisons (lampcalc.verdicts): flags of a whole lot or pair.
+    "lot_too_small_for_sd": "fewer than 2 samples: no standard deviation and no pairwise Δu′v′",
+    "lot_too_small_for_ellipse": "fewer than 3 samples: no covariance ellipse",
+    "lot_not_white": "the lot's mean point has no CCT or lies beyond 0.05 in Duv, hence no centre: no colour-consistency steps",
+    "lot_doubtful_values": "some samples have values outside their method's validity; the statistics of the ratings in doubtful_ratings include them",
+    "lot_partial_values": "some samples lack some ratings; the statistics of the ratings in partial_ratings cover fewer samples than the lot",
+    "luminous_ratio_needs_absolute_spectra": "no luminous ratio: it needs both spectra absolute and in the same quantity",
 }
 
 #: Flag -> output keys whose values it makes doubtful (shown in parentheses, never as ordinary).
