@@ -31,7 +31,7 @@ def test_batch_equals_loop():
         alone = rate_spectra(_batch(values[i], (name,)))
         for key in FIELDS:
             a, b = together[key][i], alone[key][0]
-            if isinstance(a, (str, tuple)):
+            if a is None or isinstance(a, (str, tuple)):
                 assert a == b, key
             else:
                 np.testing.assert_allclose(a, b, rtol=1e-12, atol=1e-12, equal_nan=True, err_msg=key)
@@ -48,7 +48,9 @@ def test_blackbody_rates_like_its_own_reference():
     r = rate_spectra(_batch(spectral_radiance(3000.0, GRID_NM, c2_mK=1.4388e-2), ("bb",)))
     np.testing.assert_allclose(r["ri"][0], 100.0, atol=1e-9)
     assert r["cct_K"][0] == pytest.approx(3000.0, rel=1e-10)
-    assert r["flags"][0] == ()
+    # Nothing wrong with the rendering; the shipped steps metric is unconfirmed, and a 3000 K radiator
+    # still rises at 830 nm (Wien: peak near 966 nm), so its FWHM is open and its LER range-bound.
+    assert r["flags"][0] == ("steps_metric_unconfirmed", "fwhm_at_range_end", "ler_depends_on_range")
 
 
 def test_red_led_not_meaningful():
@@ -96,7 +98,7 @@ def test_non_white_source_has_no_steps_or_category():
     # A red LED is no white light: no ANSI category and no colour-consistency steps are given.
     r = rate_spectra(_batch(_led(630, 10), ("red",)))
     assert np.isnan(r["ansi_nominal_cct_K"][0]) and np.isnan(r["sdcm_steps"][0])
-    assert "steps_metric_outside_iec_range" not in r["flags"][0]
+    assert "steps_metric_outside_set_range" not in r["flags"][0]
 
 
 def test_ten_degree_observer_changes_chromaticity_not_the_2_degree_methods():
