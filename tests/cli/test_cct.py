@@ -74,3 +74,14 @@ def test_cct_large_file_streams(run, write, tmp_path):
     assert result.exit_code == 0
     back = np.loadtxt(out, delimiter=",", skiprows=1, usecols=(2, 3))
     np.testing.assert_allclose(back, pairs, rtol=1e-9, atol=1e-12)
+
+
+def test_cct_table_shows_the_ansi_category(run):
+    # shared/REFERENCE_VALUES.md: the published 4000 K centre (0.3818, 0.3797) is in the 4000 K quadrangle;
+    # (0.30, 0.40), far above the locus, is in none.
+    result = run("cct", "--xy", "0.3818", "0.3797", "--xy", "0.30", "0.40")
+    assert result.exit_code == 0
+    lines = result.stdout.splitlines()
+    assert lines[0].split()[-2:] == ["ANSI", "flag"]
+    assert lines[2].split()[-2:] == ["4000", "-"]
+    assert lines[3].split()[-2] == "-"

@@ -131,3 +131,35 @@ def test_watts_option_gives_lamp_efficacy(run, write, tmp_path):
     assert r["efficacy_lm_per_W"] == pytest.approx(r["luminous_flux_lm"] / 4.0)
     assert r["luminous_flux_lm"] == pytest.approx(683 * 0.01, rel=1e-3)  # Km = 683 lm/W at 555 nm
     assert run("rate", path, "--watts", "0").exit_code == 2
+
+
+def test_rate_with_a_bin_set_and_an_ellipse_set(run, write, bb_table, tmp_path):
+    # A user's sets (format of docs/standard-sets.md, made-up values) change the bin and step columns;
+    # a bad set file is refused with one line naming the file and line, before any spectrum is read.
+    bins = write("bins.csv", "# name: lab bins\n# source: t\n# edition: 1\n# confirmed: yes\n# space: xy\n"
+                             "bin,x1,y1,x2,y2,x3,y3\nW,0.40,0.36,0.47,0.38,0.43,0.43\n")
+    ellipses = write("ell.csv", "# name: lab ellipses\n# source: t\n# edition: 1\n# confirmed: yes\n# space: upvp\n"
+                                "name,nominal_cct_K,x,y,a,b,theta_deg\nall,,,,0.002,0.002,0\n")
+    spectra = write("bb.csv", bb_table([3000.0]))
+    out = tmp_path / "r.json"
+    result = run("rate", spectra, "--bins", bins, "--ellipses", ellipses, "--json", out)
+    assert result.exit_code == 0, result.output
+    r = json.loads(out.read_text())[0]
+    assert (r["bin_set"], r["bin"], r["sdcm_ellipse_set"]) == ("lab bins", "W", "lab ellipses")
+    assert "steps_metric_unconfirmed" not in r["flags"]
+    bad = write("badbins.csv", "# name: x\n# source: t\n# edition: 1\n# confirmed: yes\n# space: xy\n"
+                               "bin,x1,y1,x2,y2\nW,0.40,0.36,0.47,0.38\n")
+    result = run("rate", spectra, "--bins", bad)
+    assert result.exit_code == 2 and "Traceback" not in result.output
+    assert result.stderr.strip() == f"lampcalc: {bad}, line 6: no 'x3' column (columns: bin, x1, y1, x2, y2)"
+
+
+def test_terminal_explains_every_flag_and_marks_unconfirmed_values(run, write, bb_table):
+    from lampcalc.rating.flags import explain
+
+    result = run("rate", write("bb.csv", bb_table([2200.0])))
+    assert result.exit_code == 0
+    for flag in ("bin_corners_unconfirmed", "steps_metric_unconfirmed", "steps_metric_outside_set_range"):
+        assert f"{flag}: {explain(flag)}" in result.stdout
+    assert "(2200)" in result.stdout  # the category, in parentheses: its corners are unconfirmed
+    assert "from memory" not in result.stdout
