@@ -105,7 +105,12 @@ def _summary_page(pdf, records, verdicts, page_lamps, title, page_no, n_pages):
     ax = fig.add_axes([0.06, 0.50, 0.88, 0.43])
     widths = [0.20, 0.07, 0.08, 0.06, 0.06, 0.06, 0.06, 0.06, 0.06, 0.06, 0.06, 0.07, 0.08]
     _table(ax, headers, _summary_rows(page_lamps, verdicts), widths, max_rows=LAMPS_PER_SUMMARY_PAGE)
-    flagged = [f"{r['name']}: {', '.join(r['flags'])}" for r in page_lamps if r["flags"]]
+    # Grouped by flag, so that a flag most lamps carry is written once.
+    by_flag = {}
+    for r in page_lamps:
+        for flag in r["flags"]:
+            by_flag.setdefault(flag, []).append(r["name"])
+    flagged = [f"{flag}: {'all lamps' if len(names) == len(page_lamps) else ', '.join(names)}" for flag, names in by_flag.items()]
     note = ("Flags — " + "; ".join(flagged)) if flagged else "No flags."
     fig.text(0.06, 0.485, note, fontsize=6.3, color=INK, wrap=True, va="top")
     fig.text(0.06, 0.455, "LER in lm/W over the measured part of 360–830 nm. Steps: IEC 60081 ellipse steps from the "

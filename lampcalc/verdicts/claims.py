@@ -125,8 +125,8 @@ def _check(criterion, claimed, measured, margin, note=""):
     return {"criterion": criterion, "claimed": claimed, "measured": measured, "margin": margin, "pass": ok, "note": note}
 
 
-_UNCONFIRMED_BINS = "corners not confirmed from a published table; supply the published ones with --bins"
-_UNCONFIRMED_STEPS = "metric not confirmed from a published source; supply the published one with --ellipses"
+_UNCONFIRMED_BINS = "corners not confirmed from a published table: supply the published ones with --bins"
+_UNCONFIRMED_STEPS = "metric not confirmed from a published source: supply the published one with --ellipses"
 
 
 def _quadrangle_checks(nominal, r, bin_set):
@@ -174,8 +174,8 @@ def _steps_check(v, r, ellipse_set, centre):
         steps, outside, unconfirmed = steps_from_nominal([[r["x"], r["y"]]], [v["nominal_cct_K"]], ellipse_set, centre)
     except InputError as err:
         return _check("sdcm_steps", v["max_sdcm_steps"], None, None, f"not evaluated: {err}")
-    where = "ANSI C78.377 target" if centre == "ansi" else "set's own centre"
-    note = f"{ellipse_set.name}, from the {where} of {v['nominal_cct_K']:g} K"
+    where = "ANSI target" if centre == "ansi" else "set's own centre"
+    note = f"{ellipse_set.name} from the {where} of {v['nominal_cct_K']:g} K"
     if outside[0]:
         note += "; metric of the set's nearest centre"
     if unconfirmed[0]:

@@ -18,7 +18,7 @@ def test_steps_options_change_the_metric_and_the_centre(run, tmp_path):
                  "--centre", "set")
     assert result.exit_code == 1, result.output
     d, c = _steps(default), _steps(circles)
-    assert "IEC 60081" in d["QF-A60-3000"]["note"] and "ANSI C78.377 target" in d["QF-A60-3000"]["note"]
+    assert "IEC 60081" in d["QF-A60-3000"]["note"] and "from the ANSI target of 3000 K" in d["QF-A60-3000"]["note"]
     # Circles have no centres of their own: with --centre set the steps cannot be counted, and say so.
     assert c["QF-A60-3000"]["pass"] is None and "has no centre" in c["QF-A60-3000"]["note"]
     assert "supply the published one with --ellipses" in d["QF-A60-3000"]["note"]

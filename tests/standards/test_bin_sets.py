@@ -127,3 +127,17 @@ def test_shipped_ansi_set_reads_as_a_user_file_would(tmp_path):
     assert again.names == shipped.names and again.edition == "ANSI C78.377-2017"
     np.testing.assert_array_equal(again.corners_xy, shipped.corners_xy)
     np.testing.assert_array_equal(again.bin_confirmed, shipped.bin_confirmed)
+
+
+def test_the_documented_example_reads(tmp_path):
+    from pathlib import Path
+
+    # docs/standard-sets.md shows a bin set: it must be a valid file, and its halves tile the published
+    # 4000 K quadrangle (ANSI C78.377 corner table) along the line between the edges' midpoints.
+    doc = (Path(__file__).resolve().parents[2] / "docs" / "standard-sets.md").read_text(encoding="utf-8")
+    block = doc[doc.index("### Bin sets"):].split("```")[1]
+    (tmp_path / "example.csv").write_text(block.lstrip("\n"), encoding="utf-8")
+    example = read_bin_set(tmp_path / "example.csv")
+    assert example.names == ("4A", "4B") and example.bins_of_nominal(4000).tolist() == [0, 1]
+    np.testing.assert_allclose(example.corners(0), HALVES["4A"], atol=1e-12)
+    np.testing.assert_allclose(example.corners(1), HALVES["4B"], atol=1e-12)

@@ -67,9 +67,9 @@ def test_unconfirmed_values_are_named_in_the_verdict():
     r = _rated([2238.0])
     checks = _checks(r, 0, {"nominal_cct_K": 2200.0, "max_sdcm_steps": 3.0})
     assert checks["ansi_quadrangle"]["pass"] is True
-    assert "corners not confirmed from a published table; supply the published ones with --bins" in checks["ansi_quadrangle"]["note"]
+    assert "corners not confirmed from a published table: supply the published ones with --bins" in checks["ansi_quadrangle"]["note"]
     steps = checks["sdcm_steps"]["note"]
-    assert "metric not confirmed from a published source; supply the published one with --ellipses" in steps
+    assert "metric not confirmed from a published source: supply the published one with --ellipses" in steps
     assert "nearest centre" in steps  # 2200 K lies outside the IEC centres (2700–6500 K)
     assert "from memory" not in steps + checks["ansi_quadrangle"]["note"]
 
