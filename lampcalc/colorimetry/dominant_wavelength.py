@@ -100,8 +100,10 @@ def dominant_wavelength(xy, white_xy=EQUAL_ENERGY_XY, observer="1931_2deg"):
         wl = GRID_NM[0] + np.clip(k, 0, None) + s
         out["dominant_wavelength_nm"][sl] = np.where((k >= 0) & ~is_purple & ~at_white, wl, np.nan)
         out["excitation_purity"][sl] = np.where(at_white, 0.0, np.where(k >= 0, 1.0 / t, np.nan))
-        kc, sc, _ = _first_crossing(np.broadcast_to(white, d.shape), -d, a[:n_locus], b[:n_locus])
-        out["complementary_wavelength_nm"][sl] = np.where(is_purple & (kc >= 0), GRID_NM[0] + kc + sc, np.nan)
+        # Purples only: the line back through the white point meets the locus itself.
+        rows = np.flatnonzero(is_purple & ~at_white)
+        kc, sc, _ = _first_crossing(np.broadcast_to(white, (rows.size, 2)), -d[rows], a[:n_locus], b[:n_locus])
+        out["complementary_wavelength_nm"][lo + rows] = np.where(kc >= 0, GRID_NM[0] + kc + sc, np.nan)
         purple[sl] = is_purple & ~at_white
     result = {key: value.reshape(shape) for key, value in out.items()}
     result["purple"] = purple.reshape(shape)

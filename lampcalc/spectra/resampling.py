@@ -119,25 +119,33 @@ def sprague(wavelength_nm, values, target_nm=GRID_NM):
     wl = np.asarray(wavelength_nm, dtype=float)
     values = np.asarray(values, dtype=float)
     target = np.asarray(target_nm, dtype=float)
-    if wl.size < 6:
-        raise ValueError(f"Sprague interpolation needs at least 6 points, got {wl.size}")
-    step = np.diff(wl)
-    if not np.allclose(step, step[0], rtol=1e-9, atol=1e-9):
+    if wl.size < SPRAGUE_MIN_POINTS:
+        raise ValueError(f"Sprague interpolation needs at least {SPRAGUE_MIN_POINTS} points, got {wl.size}")
+    if not is_uniform(wl):
+        step = np.diff(wl)
         raise ValueError(
             "Sprague interpolation needs uniformly spaced wavelengths; "
             f"steps range from {step.min():g} to {step.max():g} nm"
         )
-    h = step[0]
-    head = values[..., :6] @ _SPRAGUE_START.T  # f[-2], f[-1]
-    tail = values[..., -6:][..., ::-1] @ _SPRAGUE_START.T  # f[n+2], f[n+1]
-    padded = np.concatenate([head, values, tail[..., ::-1]], axis=-1)
+    # The interpolant is linear in the data: interpolate the unit vectors once, then one matrix product
+    # gives every spectrum of the batch.
+    return values @ _sprague_weights(wl, target)
+
+
+def _sprague_weights(wl, target):
+    """Weights (n, m) such that data (n,) @ weights is the Sprague interpolant at ``target``."""
+    unit = np.eye(wl.size)
+    h = wl[1] - wl[0]
+    head = unit[..., :6] @ _SPRAGUE_START.T  # f[-2], f[-1]
+    tail = unit[..., -6:][..., ::-1] @ _SPRAGUE_START.T  # f[n+2], f[n+1]
+    padded = np.concatenate([head, unit, tail[..., ::-1]], axis=-1)
     inside = (target >= wl[0]) & (target <= wl[-1])
     pos = np.where(inside, (target - wl[0]) / h, 0.0)
     i = np.clip(np.floor(pos).astype(int), 0, wl.size - 2)
     x = pos - i
     # Six neighbours f[i-2..i+3] sit at padded[i..i+5].
-    window = padded[..., i[:, None] + np.arange(6)]  # (..., m, 6)
-    coeff = window @ _SPRAGUE_POLY.T  # (..., m, 6): a0..a5
+    window = padded[..., i[:, None] + np.arange(6)]  # (n, m, 6)
+    coeff = window @ _SPRAGUE_POLY.T  # (n, m, 6): a0..a5
     powers = x[:, None] ** np.arange(6)
     out = np.sum(coeff * powers, axis=-1)
     return np.where(inside, out, 0.0)

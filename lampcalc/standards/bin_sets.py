@@ -46,8 +46,9 @@ class BinSet:
     nominal_cct_K : ndarray, shape (n_bins,)
         NaN where a bin names none.
     bin_confirmed : ndarray of bool, shape (n_bins,)
-    corners_xy : ndarray, shape (n_bins, MAX_CORNERS, 2)
-        Corners in CIE 1931 (x, y), in order; NaN beyond each bin's ``n_corners``.
+    corners_xy : ndarray, shape (n_bins, k, 2)
+        Corners in CIE 1931 (x, y), in order; ``k`` is the most corners of any bin, and
+        the rows are NaN beyond each bin's ``n_corners``.
     n_corners : ndarray of int, shape (n_bins,)
     """
 
@@ -117,7 +118,7 @@ def read_bin_set(path):
         nominal.append(number(table, line, row, "nominal_cct_K", positive=True, blank_ok=True))
         confirmed.append(row_confirmed(table, line, row))
         corners.append(_corners(table, line, row, space))
-    padded = np.full((len(corners), MAX_CORNERS, 2), np.nan)
+    padded = np.full((len(corners), max(len(c) for c in corners), 2), np.nan)
     for k, c in enumerate(corners):
         padded[k, : len(c)] = c
     return BinSet(
@@ -155,22 +156,26 @@ def margins(xy, bin_set):
     ndarray, shape (..., n_bins)
         NaN for a NaN chromaticity.
     """
-    p = xy_to_uv(np.asarray(xy, dtype=float))[..., None, None, :]  # (..., 1, 1, 2)
-    c = xy_to_uv(bin_set.corners_xy)  # (n_bins, MAX_CORNERS, 2)
-    k = np.arange(MAX_CORNERS)
+    p = xy_to_uv(np.asarray(xy, dtype=float))  # (..., 2)
+    c = xy_to_uv(bin_set.corners_xy)  # (n_bins, k, 2)
+    n_bins, k_max = c.shape[:2]
+    k = np.arange(k_max)
     valid = k[None, :] < bin_set.n_corners[:, None]  # edge k runs from corner k to the next
     nxt = np.where(k[None, :] + 1 < bin_set.n_corners[:, None], k[None, :] + 1, 0)
-    a = c
-    b = np.take_along_axis(c, nxt[..., None], axis=1)
-    edge = b - a
-    length = np.linalg.norm(edge, axis=-1)
+    edge = np.take_along_axis(c, nxt[..., None], axis=1) - c
     with np.errstate(invalid="ignore", divide="ignore"):
-        normal = np.stack([edge[..., 1], -edge[..., 0]], axis=-1) / length[..., None]
+        normal = np.stack([edge[..., 1], -edge[..., 0]], axis=-1) / np.linalg.norm(edge, axis=-1)[..., None]
     centre = np.nanmean(np.where(valid[..., None], c, np.nan), axis=1)  # inside a convex polygon
-    orient = np.sign(np.sum((centre[:, None, :] - a) * normal, axis=-1))  # inward normals
-    dist = np.sum((p - a) * normal, axis=-1) * orient  # (..., n_bins, MAX_CORNERS)
-    dist = np.where(valid, dist, np.inf)
-    return np.min(dist, axis=-1)
+    normal *= np.sign(np.sum((centre[:, None, :] - c) * normal, axis=-1))[..., None]  # inward normals
+    normal = np.where(valid[..., None], normal, 0.0)
+    offset = np.where(valid, np.sum(c * normal, axis=-1), -np.inf)  # padding edges never bind
+    # Signed distance of every point from every edge line, p·n − a·n, and its least over the edges
+    # (a loop over the few edges keeps the arrays at (..., n_bins)).
+    pu, pv = p[..., 0:1], p[..., 1:2]
+    out = np.full(p.shape[:-1] + (n_bins,), np.inf)
+    for j in range(k_max):
+        np.minimum(out, pu * normal[:, j, 0] + pv * normal[:, j, 1] - offset[:, j], out=out)
+    return out
 
 
 def classify(xy, bin_set, edge_uv=1e-12):
