@@ -35,8 +35,8 @@ FLAG_MEANINGS = {
         "bin's values are null"
     ),
     "bin_corners_unconfirmed": (
-        "the quadrangle or bin the lamp is in or nearest to has corners not read from a published table "
-        "(ANSI 2200 and 2500 K: built by the standard's construction); supply the published ones with --bins FILE"
+        "the quadrangle or bin the lamp is in, or within 1e-3 (u, v) of, has corners not read from a published "
+        "table (ANSI 2200 and 2500 K: built by the standard's construction); supply the published ones with --bins FILE"
     ),
     "steps_metric_outside_set_range": (
         "steps counted with the metric of the ellipse set's nearest centre (nominal CCT outside the set's centres)"
@@ -51,6 +51,10 @@ FLAG_MEANINGS = {
     ),
     "at_equal_energy_point": "the chromaticity is the equal-energy point: no dominant wavelength (purity 0)",
     "fwhm_at_range_end": "the highest peak stays above half its height up to an end of the measured range: no FWHM",
+    "fwhm_below_grid_resolution": (
+        "the highest peak is under 3 nm wide on the 1 nm computation grid, which cannot resolve it: "
+        "the line itself may be narrower than fwhm_nm"
+    ),
 }
 
 #: Flag -> output keys whose values it makes doubtful (shown in parentheses, never as ordinary).
@@ -61,6 +65,7 @@ DOUBTFUL_KEYS = {
     "bin_corners_unconfirmed": ("ansi_nominal_cct_K", "bin"),
     "steps_metric_outside_set_range": ("sdcm_steps",),
     "steps_metric_unconfirmed": ("sdcm_steps",),
+    "fwhm_below_grid_resolution": ("fwhm_nm",),
 }
 
 _RENDERING = ("ra", "ri", "cri_dc", "rf", "rg", "rf_hue_bins", "chroma_shift_hue_bins_percent", "hue_shift_hue_bins_rad")

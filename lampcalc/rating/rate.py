@@ -32,6 +32,11 @@ _LUMINOUS_FIELD = {"flux": "luminous_flux_lm", "irradiance": "illuminance_lx", "
 #: tungsten lamp, whose power keeps rising into the infrared, does not).
 LER_END_FRACTION = 0.05
 LER_END_WIDTH_NM = 5
+#: A lamp within this distance (CIE 1960 u, v) outside a bin with unconfirmed corners is flagged with it:
+#: corners off by the rounding of a table (1e-4) could change its verdict (lampcalc's own margin).
+UNCONFIRMED_REACH_UV = 1e-3
+#: Below this FWHM on the 1 nm grid a peak is narrower than the grid resolves (lampcalc's own choice).
+FWHM_RESOLVED_NM = 3.0
 
 
 def _as_grid_batch(spectra, interpolation):
@@ -84,10 +89,11 @@ def _categories(xy, cct, duv, nominal, bin_set, ellipse_set):
         "sdcm_centre_nominal_cct_K": centre,
         "sdcm_steps": steps,
     }
+    # The ANSI quadrangle or the bin the lamp is in, or close to, was not read from a published table.
+    near_ansi = np.isfinite(nearest) & (found["margin_uv"] > -UNCONFIRMED_REACH_UV)
+    near_bin = (bins["nearest"] >= 0) & (bins["margin_uv"] > -UNCONFIRMED_REACH_UV)
     conditions = {
-        # The ANSI quadrangle or the bin the lamp is in (or nearest to) was not read from a published table.
-        "bin_corners_unconfirmed": (~found["bin_confirmed"] & np.isfinite(nearest))
-        | (~bin_confirmed & (bins["nearest"] >= 0)),
+        "bin_corners_unconfirmed": (~found["bin_confirmed"] & near_ansi) | (~bin_confirmed & near_bin),
         "steps_metric_outside_set_range": outside,
         "steps_metric_unconfirmed": unconfirmed,
     }
@@ -111,6 +117,7 @@ def _colour(xy, values, measured_range_nm):
         "purple_complementary_wavelength": dom["purple"],
         "at_equal_energy_point": at_white,
         "fwhm_at_range_end": feat["fwhm_at_range_end"],
+        "fwhm_below_grid_resolution": feat["fwhm_nm"] < FWHM_RESOLVED_NM,
     }
 
 

@@ -109,6 +109,10 @@ def read_set_table(path, allowed_columns, required_columns):
     except csv.Error as err:
         raise InputError(f"{path}: cannot be read as CSV ({err})") from None
     header = tuple(h.strip() for h in cells[0])
+    if len(header) == 1 and ";" in header[0]:
+        raise InputError(
+            f"{path}, line {first}: the table is separated by ';'; set files are comma-separated with a decimal point"
+        )
     for column in header:
         if column not in allowed_columns:
             raise InputError(

@@ -200,6 +200,8 @@ def test_fine_data_rated_the_same_wherever_the_lines_sit():
     assert r["interpolation"] == ("integrated", "integrated")
     assert abs(r["x"][0] - r["x"][1]) < 2e-3 and abs(r["y"][0] - r["y"][1]) < 2e-3
     assert abs(r["cct_K"][0] - r["cct_K"][1]) < 0.02 * r["cct_K"][0]
+    # The lines are 0.5 nm wide; on the 1 nm grid they cannot look narrower than about 2 nm: flagged.
+    assert all("fwhm_below_grid_resolution" in f for f in r["flags"]) and np.all(r["fwhm_nm"] > 0.5)
 
 
 def test_user_bins_and_ellipses(write):
@@ -224,3 +226,13 @@ def test_user_bins_and_ellipses(write):
     d = np.hypot(r["x"][0] - centre_xy(3000)[0], r["y"][0] - centre_xy(3000)[1])
     assert r["sdcm_steps"][0] == pytest.approx(d / 0.01, rel=1e-9)
     assert default["sdcm_steps"][0] != r["sdcm_steps"][0]
+
+
+def test_unconfirmed_corners_flagged_only_where_they_can_matter():
+    # ANSI 2200 K corners are built, not read (docs/claims.md): a lamp at the 2200 K target (2238 K,
+    # Duv 0, Table 1) is flagged; an amber LED far from every quadrangle is not, though 2200 K is nearest.
+    bb = spectral_radiance(2238.0, GRID_NM, c2_mK=1.4388e-2)
+    r = rate_spectra(_batch(np.stack([bb, _led(590, 8)]), ("bb", "amber")))
+    assert r["ansi_nominal_cct_K"][0] == 2200 and "bin_corners_unconfirmed" in r["flags"][0]
+    assert r["ansi_nearest_nominal_cct_K"][1] == 2200 and r["ansi_margin_uv"][1] < -1e-3
+    assert "bin_corners_unconfirmed" not in r["flags"][1]

@@ -42,6 +42,7 @@ def test_metadata_comments_and_rows(write):
         (TEXT.replace("name,value,confirmed", "name,value,value"), "line 9: column 'value' appears twice"),
         (TEXT.replace("# space: xy", "# space:"), "metadata '# space: ...' is missing or empty"),
         ("", "line 1: metadata '# name: ...' is missing"),
+        (TEXT.replace("name,value,confirmed", "name;value").replace("a,1.5,yes", "a;1,5"), "line 9: the table is separated by ';'"),
     ],
 )
 def test_bad_frames_refused_with_the_line(write, text, fragment):
