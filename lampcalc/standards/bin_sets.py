@@ -184,12 +184,8 @@ def classify(xy, bin_set, edge_uv=1e-12):
     A point on an edge belongs to the bin (margin ≥ −``edge_uv``, a tolerance for rounding
     in the last bits only). A point inside two bins (on a shared edge, or where a published
     table's rounding makes neighbours overlap) is given to the one it is deepest inside;
-    on a tie (within ``edge_uv``), to the first in the file's order.
-
-    Parameters
-    ----------
-    xy : array_like, shape (..., 2)
-    bin_set : BinSet
+    on a tie (within ``edge_uv``), to the first in the file's order. ``xy`` and ``bin_set``
+    as for :func:`margins`.
 
     Returns
     -------
