@@ -11,26 +11,37 @@ from .common import (
     collect_files,
     fail_on_input_errors,
     rate_batches,
+    read_sets,
     read_some,
+    set_options,
     spectrum_options,
     write_outputs,
 )
-from .printouts import TABLE_NOTES, rating_table, verdict_text
+from .printouts import TABLE_NOTES, flag_legend, rating_table, verdict_text
 
 
-def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_out=None, steps="ellipse",
+def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_out=None, sets=None,
                     centre="ansi", quiet_table=False, **reading):
-    """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2) and the ratings."""
+    """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2) and the ratings.
+
+    ``sets``: (bin set, ellipse set) from :func:`~lampcalc.cli.common.read_sets`; the shipped ones by default.
+    """
     from ..verdicts.claims import check_claims, read_claims
 
+    bin_set, ellipse_set = sets or read_sets()
     claims = read_claims(claims_path)
     batches, errors = read_some(files, **reading)
     nominal = {c.lamp: c.values["nominal_cct_K"] for c in claims.values() if "nominal_cct_K" in c.values}
-    ratings = rate_batches(batches, nominal)
-    verdicts = check_claims(claims, ratings, claims_path, sdcm_method=steps, sdcm_centre=centre)
+    ratings = rate_batches(batches, nominal, (bin_set, ellipse_set))
+    verdicts = check_claims(
+        claims, ratings, claims_path, ellipse_set=ellipse_set, sdcm_centre=centre, bin_set=bin_set
+    )
     if not quiet_table:
         click.echo(rating_table(ratings))
-        click.echo(TABLE_NOTES + "\n")
+        click.echo(TABLE_NOTES)
+        if legend := flag_legend(ratings):
+            click.echo("Flags:\n" + legend)
+        click.echo()
     click.echo(verdict_text(verdicts))
     click.echo("\n" + verdicts.summary())
     write_outputs(ratings, verdicts, json_out, csv_out, report_out)
@@ -52,15 +63,16 @@ def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_o
 @click.option("--report", "report_out", type=click.Path(dir_okay=False), help="Write a PDF report with the verdicts.")
 @click.option(
     "--steps", type=click.Choice(["ellipse", "circle"]), default="ellipse", show_default=True,
-    help="Colour-consistency steps: IEC 60081 ellipses or CIE TN 001 u'v' circles.",
+    help="Colour-consistency steps: IEC 60081 ellipses or CIE TN 001 u'v' circles (shipped sets; --ellipses replaces them).",
 )
 @click.option(
-    "--centre", type=click.Choice(["ansi", "iec"]), default="ansi", show_default=True,
-    help="Centre of the steps: ANSI C78.377 target of the nominal CCT, or the IEC 60081 colour centre.",
+    "--centre", type=click.Choice(["ansi", "set"]), default="ansi", show_default=True,
+    help="Centre of the steps: ANSI C78.377 target of the nominal CCT, or the ellipse set's own centre (IEC 60081's F2700...).",
 )
+@set_options
 @spectrum_options
 @fail_on_input_errors
-def check(paths, claims_path, json_out, csv_out, report_out, steps, centre, recursive, **reading):
+def check(paths, claims_path, json_out, csv_out, report_out, steps, centre, recursive, bins, ellipses, **reading):
     """Check a supplier's claims against the spectra: one verdict per claim.
 
     Exit status 0 when every claim holds, 1 when any does not (or cannot be shown to),
@@ -70,7 +82,7 @@ def check(paths, claims_path, json_out, csv_out, report_out, steps, centre, recu
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
     status, _ = check_and_write(
-        files, claims_path, json_out=json_out, csv_out=csv_out, report_out=report_out, steps=steps, centre=centre,
-        **reading,
+        files, claims_path, json_out=json_out, csv_out=csv_out, report_out=report_out,
+        sets=read_sets(bins, ellipses, steps), centre=centre, **reading,
     )
     sys.exit(status)

@@ -92,7 +92,7 @@ def collect_files(paths, recursive):
     return files
 
 
-def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, interpolation="linear", watts=None):
+def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, interpolation="auto", watts=None):
     """Read every file onto the grid; returns ``(batches, errors)``. ``strict`` stops at the first error.
 
     ``watts`` is the electrical power of every lamp whose file does not give one.
@@ -125,7 +125,8 @@ def read_some(files, **reading):
     return batches, errors
 
 
-def rate_batches(batches, nominal=None):
+def rate_batches(batches, nominal=None, sets=None):
+    """Rate the batches together; ``sets`` from :func:`read_sets` (bin set, ellipse set)."""
     from ..rating.rate import rate_spectra
     from ..spectra.batch import SpectralBatch
 
@@ -134,7 +135,39 @@ def rate_batches(batches, nominal=None):
         click.echo(f"rating {batch.n_lamps} lamps ...", err=True)
     names = batch.names
     nominal_cct = None if nominal is None else [nominal.get(name, float("nan")) for name in names]
-    return rate_spectra(batch, nominal_cct_K=nominal_cct)
+    bin_set, ellipse_set = sets or (None, None)
+    return rate_spectra(batch, nominal_cct_K=nominal_cct, bin_set=bin_set, ellipse_set=ellipse_set)
+
+
+def read_sets(bins=None, ellipses=None, steps="ellipse"):
+    """The bin set and ellipse set a command uses: the user's files, else the shipped ones.
+
+    ``ellipses`` (a user's file) takes precedence over ``steps`` (the shipped set's name).
+    """
+    from ..standards.bin_sets import read_bin_set
+    from ..standards.ellipse_sets import read_ellipse_set, shipped_ellipse_set
+
+    bin_set = read_bin_set(bins) if bins else None
+    ellipse_set = read_ellipse_set(ellipses) if ellipses else shipped_ellipse_set(steps)
+    return bin_set, ellipse_set
+
+
+def set_options(fn):
+    """The ``--bins`` and ``--ellipses`` options of the commands that rate spectra."""
+    for option in reversed(
+        [
+            click.option(
+                "--bins", type=click.Path(exists=True, dir_okay=False), default=None, metavar="FILE",
+                help="Bin set file (docs/standard-sets.md): the bins of the bin columns and of nominal-CCT claims.",
+            ),
+            click.option(
+                "--ellipses", type=click.Path(exists=True, dir_okay=False), default=None, metavar="FILE",
+                help="Ellipse set file (docs/standard-sets.md) for the colour-consistency steps.",
+            ),
+        ]
+    ):
+        fn = option(fn)
+    return fn
 
 
 def spectrum_options(fn):
@@ -164,10 +197,11 @@ def spectrum_options(fn):
             ),
             click.option(
                 "--interpolation",
-                type=click.Choice(["linear", "sprague"]),
-                default="linear",
+                type=click.Choice(["auto", "linear", "sprague"]),
+                default="auto",
                 show_default=True,
-                help="Resampling to 1 nm: linear (measured spectra) or Sprague (uniform, smooth data; CIE 167).",
+                help="Resampling to 1 nm. auto: Sprague for uniform data coarser than 1 nm (CIE 167, CIE 015), "
+                "linear for non-uniform data, integration for data finer than 1 nm.",
             ),
         ]
     ):

@@ -113,8 +113,8 @@ def lot_and_write(files, *, claims_path=None, centre_cct=None, steps="ellipse", 
                    "category nearest the mean point).")
 @click.option("--steps", type=click.Choice(["ellipse", "circle"]), default="ellipse", show_default=True,
               help="Colour-consistency steps: IEC 60081 ellipses or CIE TN 001 u'v' circles.")
-@click.option("--centre", type=click.Choice(["ansi", "iec"]), default="ansi", show_default=True,
-              help="Centre of the steps: ANSI C78.377 target of the nominal CCT, or the IEC 60081 colour centre.")
+@click.option("--centre", type=click.Choice(["ansi", "set"]), default="ansi", show_default=True,
+              help="Centre of the steps: ANSI C78.377 target of the nominal CCT, or the ellipse set's own centre (IEC 60081's F2700...).")
 @click.option("--limit-delta-uv-prime", "limit", type=click.FloatRange(min=0), default=None, metavar="DUV",
               help="Your limit on the largest Δu'v' from the mean point over angle (spectra with angle_deg).")
 @click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write everything to this JSON file.")

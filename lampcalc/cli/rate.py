@@ -12,19 +12,23 @@ from .common import (
     fail_on_input_errors,
     rate_batches,
     read_files,
+    read_sets,
+    set_options,
     spectrum_options,
     write_outputs,
 )
-from .printouts import TABLE_NOTES, rating_table
+from .printouts import TABLE_NOTES, flag_legend, rating_table
 
 
-def rate_and_write(files, *, json_out=None, csv_out=None, report_out=None, **reading):
+def rate_and_write(files, *, json_out=None, csv_out=None, report_out=None, sets=None, **reading):
     """Read, rate, print and write; returns the number of files that failed. ``reading``: see read_files."""
     batches, errors = read_files(files, **reading)
     if batches:
-        ratings = rate_batches(batches)
+        ratings = rate_batches(batches, sets=sets)
         click.echo(rating_table(ratings))
         click.echo(TABLE_NOTES)
+        if legend := flag_legend(ratings):
+            click.echo("Flags:\n" + legend)
         write_outputs(ratings, None, json_out, csv_out, report_out)
         click.echo(CAUTION)
     for message in errors:
@@ -39,17 +43,19 @@ def rate_and_write(files, *, json_out=None, csv_out=None, report_out=None, **rea
 @click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write every rating to this JSON file.")
 @click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write every rating to this CSV file.")
 @click.option("--report", "report_out", type=click.Path(dir_okay=False), help="Write a PDF report of every lamp.")
+@set_options
 @spectrum_options
 @fail_on_input_errors
-def rate(paths, json_out, csv_out, report_out, recursive, **reading):
+def rate(paths, json_out, csv_out, report_out, recursive, bins, ellipses, **reading):
     """Rate every spectrum in the files (and with -r, folders) given.
 
     Each file holds a wavelength column and one column per lamp (or lampcalc JSON).
     Files that cannot be read are reported at the end; the others are still rated.
     """
+    sets = read_sets(bins, ellipses)
     files = collect_files(paths, recursive)
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
-    failed = rate_and_write(files, json_out=json_out, csv_out=csv_out, report_out=report_out, **reading)
+    failed = rate_and_write(files, json_out=json_out, csv_out=csv_out, report_out=report_out, sets=sets, **reading)
     if failed:
         sys.exit(2)

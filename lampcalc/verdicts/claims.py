@@ -27,7 +27,9 @@ import numpy as np
 
 from ..errors import InputError
 from ..io.serialise import plain
-from ..standards.ansi_bins import DUV_TOLERANCE, category, quadrangle_margin
+from ..standards.ansi_bins import DUV_TOLERANCE, FLEXIBLE_NOTE, ansi_bin_set, category, quadrangle_margin
+from ..standards.bin_sets import margins
+from ..standards.ellipse_sets import shipped_ellipse_set
 from ..standards.steps import steps_from_nominal
 
 #: Claim columns and their meaning; every other column is refused.
@@ -123,48 +125,113 @@ def _check(criterion, claimed, measured, margin, note=""):
     return {"criterion": criterion, "claimed": claimed, "measured": measured, "margin": margin, "pass": ok, "note": note}
 
 
-def check_lamp(claim, ratings, i, sdcm_method="ellipse", sdcm_centre="ansi"):
-    """All checks of one lamp's claims against row ``i`` of ``ratings``: a list of dicts."""
+_UNCONFIRMED_BINS = "corners not confirmed from a published table: supply the published ones with --bins"
+_UNCONFIRMED_STEPS = "metric not confirmed from a published source: supply the published one with --ellipses"
+
+
+def _quadrangle_checks(nominal, r, bin_set):
+    """The nominal-CCT claim: inside its bin(s) or quadrangle, and CCT and Duv against the targets.
+
+    A user's bin set decides the quadrangle check for the nominal CCTs it holds; the
+    shipped ANSI quadrangles decide it for Table 1; a flexible CCT has no published
+    quadrangle or CCT tolerance in lampcalc, so those two are not evaluated.
+    """
+    cat = category(nominal)
+    xy = np.array([r["x"], r["y"]])
+    cct, duv = r["cct_K"], r["duv"]
+    in_set = bin_set.bins_of_nominal(nominal) if bin_set is not None else np.array([], dtype=int)
+    checks = []
+    if in_set.size:
+        margin = float(np.max(margins(xy, bin_set)[in_set])) * 1e3
+        note = f"{bin_set.name}: bin {' or '.join(bin_set.names[k] for k in in_set)}"
+        if not np.all(bin_set.bin_confirmed[in_set]):
+            note += f"; {_UNCONFIRMED_BINS}"
+        checks.append(_check("bin", nominal, cct, margin, note))
+    elif cat.flexible:
+        checks.append(_check("ansi_quadrangle", nominal, cct, None, FLEXIBLE_NOTE))
+    else:
+        note = cat.label()
+        if not ansi_bin_set().bin_confirmed[cat.bin_index]:
+            note += f"; {_UNCONFIRMED_BINS}"
+        checks.append(_check("ansi_quadrangle", nominal, cct, float(quadrangle_margin(xy, nominal)) * 1e3, note))
+    if cat.flexible:
+        checks.append(_check("ansi_cct_K", cat.target_cct_K, cct, None, FLEXIBLE_NOTE))
+    else:
+        cct_margin = None if cct is None else cat.cct_tolerance_K - abs(cct - cat.target_cct_K)
+        checks.append(
+            _check("ansi_cct_K", cat.target_cct_K, cct, cct_margin, f"target {cat.target_cct_K:g} ± {cat.cct_tolerance_K:g} K")
+        )
+    duv_margin = None if duv is None else DUV_TOLERANCE - abs(duv - cat.target_duv)
+    source = "centre-line formula" if cat.flexible else "Table 1"
+    checks.append(_check("ansi_duv", cat.target_duv, duv, duv_margin, f"target {cat.target_duv:+.4f} ± {DUV_TOLERANCE} ({source})"))
+    return checks
+
+
+def _steps_check(v, r, ellipse_set, centre):
+    if "nominal_cct_K" not in v:
+        return _check("sdcm_steps", v["max_sdcm_steps"], None, None, "needs nominal_cct_K for the centre")
+    try:
+        steps, outside, unconfirmed = steps_from_nominal([[r["x"], r["y"]]], [v["nominal_cct_K"]], ellipse_set, centre)
+    except InputError as err:
+        return _check("sdcm_steps", v["max_sdcm_steps"], None, None, f"not evaluated: {err}")
+    where = "ANSI target" if centre == "ansi" else "set's own centre"
+    note = f"{ellipse_set.name} from the {where} of {v['nominal_cct_K']:g} K"
+    if outside[0]:
+        note += "; metric of the set's nearest centre"
+    if unconfirmed[0]:
+        note += f"; {_UNCONFIRMED_STEPS}"
+    return _check("sdcm_steps", v["max_sdcm_steps"], float(steps[0]), v["max_sdcm_steps"] - float(steps[0]), note)
+
+
+def _efficacy_check(v, r):
+    claimed = v["min_efficacy_lm_per_W"]
+    watts = v.get("electrical_W", r["electrical_W"])
+    flux, radiant = r["luminous_flux_lm"], r["radiant_flux_W"]
+    if flux is None:
+        return _check("efficacy_lm_per_W", claimed, None, None, "cannot be checked: the spectrum is not in W/nm")
+    if not watts:
+        return _check("efficacy_lm_per_W", claimed, None, None, "cannot be checked: no electrical power")
+    if radiant > watts:
+        return _check(
+            "efficacy_lm_per_W", claimed, None, None,
+            f"not evaluated: radiant flux {radiant:.4g} W exceeds the electrical power {watts:g} W, which is "
+            "impossible (check the spectrum's unit, e.g. mW/nm read as W/nm, and the power)",
+        )
+    efficacy = flux / watts
+    return _check("efficacy_lm_per_W", claimed, efficacy, efficacy - claimed, f"{flux:.1f} lm / {watts:g} W")
+
+
+def check_lamp(claim, ratings, i, ellipse_set=None, sdcm_centre="ansi", bin_set=None):
+    """All checks of one lamp's claims against row ``i`` of ``ratings``: a list of dicts.
+
+    Parameters
+    ----------
+    ellipse_set : EllipseSet, optional
+        Metric of the colour-consistency claim; by default the shipped IEC 60081 set.
+    sdcm_centre : {"ansi", "set"}
+        Centre of the steps (see :func:`lampcalc.standards.steps.centre_xy`).
+    bin_set : BinSet, optional
+        A user's bins: they decide the nominal-CCT claim for the nominal CCTs they hold.
+    """
     r = {k: plain(ratings[k][i]) for k in ratings.columns}
     v = claim.values
     checks = []
     flags = set(r["flags"])
     if "nominal_cct_K" in v:
-        cat = category(v["nominal_cct_K"])
-        xy = np.array([r["x"], r["y"]])
-        cct, duv = r["cct_K"], r["duv"]
-        checks.append(
-            _check(
-                "ansi_quadrangle",
-                cat.nominal_cct_K,
-                cct,
-                float(quadrangle_margin(xy, cat.nominal_cct_K)) * 1e3,
-                cat.label(),
-            )
-        )
-        cct_margin = None if cct is None else cat.cct_tolerance_K - abs(cct - cat.target_cct_K)
-        duv_margin = None if duv is None else DUV_TOLERANCE - abs(duv - cat.target_duv)
-        checks.append(
-            _check("ansi_cct_K", cat.target_cct_K, cct, cct_margin, f"target {cat.target_cct_K:g} ± {cat.cct_tolerance_K:g} K")
-        )
-        checks.append(_check("ansi_duv", cat.target_duv, duv, duv_margin, f"target {cat.target_duv:+.4f} ± {DUV_TOLERANCE}"))
+        checks += _quadrangle_checks(v["nominal_cct_K"], r, bin_set)
     if "max_sdcm_steps" in v:
-        if "nominal_cct_K" not in v:
-            checks.append(_check("sdcm_steps", v["max_sdcm_steps"], None, None, "needs nominal_cct_K for the centre"))
-        else:
-            steps, outside = steps_from_nominal([[r["x"], r["y"]]], [v["nominal_cct_K"]], sdcm_method, sdcm_centre)
-            note = f"{sdcm_method} steps from the {sdcm_centre.upper()} centre of {v['nominal_cct_K']:g} K"
-            if outside[0]:
-                note += "; metric of the nearest IEC 60081 centre"
-            checks.append(_check("sdcm_steps", v["max_sdcm_steps"], float(steps[0]), v["max_sdcm_steps"] - float(steps[0]), note))
+        checks.append(_steps_check(v, r, ellipse_set or shipped_ellipse_set(), sdcm_centre))
     cri_note = "outside CIE 13.3 validity (DC > 5.4e-3)" if "cri_outside_validity" in flags else ""
+    ler_note = "luminous efficacy of the radiation"
+    if "ler_depends_on_range" in flags:
+        ler_note += f" over {r['ler_range_nm'][0]:g}-{r['ler_range_nm'][1]:g} nm only: real power at the range's end"
     r9 = r["ri"][8] if r["ri"] else None
     for key, measured, criterion, note in (
         ("min_ra", r["ra"], "ra", cri_note),
         ("min_r9", r9, "r9", cri_note),
         ("min_rf", r["rf"], "rf", ""),
         ("min_rg", r["rg"], "rg_min", ""),
-        ("min_ler_lm_per_W", r["ler_lm_per_W"], "ler_lm_per_W", "luminous efficacy of the radiation"),
+        ("min_ler_lm_per_W", r["ler_lm_per_W"], "ler_lm_per_W", ler_note),
     ):
         if key in v:
             margin = None if measured is None else measured - v[key]
@@ -173,25 +240,7 @@ def check_lamp(claim, ratings, i, sdcm_method="ellipse", sdcm_centre="ansi"):
         margin = None if r["rg"] is None else v["max_rg"] - r["rg"]
         checks.append(_check("rg_max", v["max_rg"], r["rg"], margin))
     if "min_efficacy_lm_per_W" in v:
-        watts = v.get("electrical_W", r["electrical_W"])
-        flux = r["luminous_flux_lm"]
-        if flux is None:
-            checks.append(
-                _check("efficacy_lm_per_W", v["min_efficacy_lm_per_W"], None, None, "cannot be checked: the spectrum is not in W/nm")
-            )
-        elif not watts:
-            checks.append(_check("efficacy_lm_per_W", v["min_efficacy_lm_per_W"], None, None, "cannot be checked: no electrical power"))
-        else:
-            efficacy = flux / watts
-            checks.append(
-                _check(
-                    "efficacy_lm_per_W",
-                    v["min_efficacy_lm_per_W"],
-                    efficacy,
-                    efficacy - v["min_efficacy_lm_per_W"],
-                    f"{flux:.1f} lm / {watts:g} W",
-                )
-            )
+        checks.append(_efficacy_check(v, r))
     return checks
 
 

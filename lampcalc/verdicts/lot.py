@@ -22,11 +22,13 @@ The per-sample values are under the key ``samples`` (a dict of columns).
 import numpy as np
 
 from ..colorimetry.locus import locate
-from ..colorimetry.tristimulus import upvp_to_xy, xy_to_upvp, xy_to_uv
+from ..colorimetry.tristimulus import xy_to_uv
 from ..errors import InputError
 from ..rating.flags import doubtful_keys
 from ..standards.ansi_bins import category, classify
-from ..standards.steps import TN001_STEP_UPVP, centre_xy, circle_steps, ellipse_steps, metric, steps_from_nominal
+from ..standards.bin_sets import TO_XY
+from ..standards.ellipse_sets import FROM_XY, shipped_ellipse_set
+from ..standards.steps import centre_xy, ellipse_steps, steps_from_nominal
 from .spread import ELLIPSE_PROBABILITY, STATISTICS, covariance_ellipse, describe, ellipse_boundary, farthest_pair
 
 #: Ratings summarised over a lot: output key -> unit for tables ("" for an index or ratio).
@@ -100,48 +102,58 @@ def lot_centre(mean_xy, nominal_cct_K=None):
     return float(classify(np.asarray(mean_xy)[None])["nearest_nominal_cct_K"][0]), "nearest category"
 
 
-def steps_between(xy, point_xy, nominal_cct_K, method="ellipse"):
+def ellipse_set_of(steps):
+    """The ellipse set ``steps`` names: a shipped one ("ellipse", "circle") or an EllipseSet itself."""
+    return shipped_ellipse_set(steps) if isinstance(steps, str) else steps
+
+
+def steps_between(xy, point_xy, nominal_cct_K, steps="ellipse"):
     """Colour-consistency steps of chromaticities from any point, shape (...).
 
-    ``method="ellipse"``: the IEC 60081 metric of the nominal CCT
-    (:func:`lampcalc.standards.steps.metric`); ``"circle"``: CIE TN 001 u′v′ circles.
+    The one-step metric of the ellipse set ``steps`` at the nominal CCT
+    (:meth:`lampcalc.standards.ellipse_sets.EllipseSet.metric`), in the set's coordinates:
+    ``"ellipse"`` the shipped IEC 60081 ellipses, ``"circle"`` the CIE TN 001 u′v′ circles,
+    or an :class:`~lampcalc.standards.ellipse_sets.EllipseSet` read from a file.
     """
-    if method == "ellipse":
-        return ellipse_steps(xy, point_xy, metric(nominal_cct_K)[0])
-    if method == "circle":
-        return circle_steps(xy, point_xy)
-    raise ValueError(f"unknown steps method {method!r}; choose one of ellipse, circle")
+    ellipse_set = ellipse_set_of(steps)
+    to_space = FROM_XY[ellipse_set.space]
+    return ellipse_steps(to_space(xy), to_space(point_xy), ellipse_set.metric(nominal_cct_K)[0])
 
 
-def steps_ring_xy(point_xy, nominal_cct_K, n_steps, method="ellipse", n_points=241):
+def steps_ring_xy(point_xy, nominal_cct_K, n_steps, steps="ellipse", n_points=241):
     """Points (x, y) at ``n_steps`` steps from a point, shape (n_points, 2), closed.
 
-    The IEC 60081 ellipse of the nominal CCT's metric (``method="ellipse"``), or the CIE
-    TN 001 circle in u′v′ (``"circle"``), around ``point_xy``: what :func:`steps_between`
-    measures as exactly ``n_steps``.
+    The ellipse of the set's metric at the nominal CCT around ``point_xy``, drawn in the
+    set's coordinates and brought back to (x, y): what :func:`steps_between` measures as
+    exactly ``n_steps``.
     """
-    if method == "ellipse":
-        g = metric(nominal_cct_K)[0]
-        form = 1e4 * np.array([[g[0], g[1]], [g[1], g[2]]])
-        return ellipse_boundary(point_xy, np.linalg.inv(form), float(n_steps) ** 2, n_points)
-    if method == "circle":
-        centre = xy_to_upvp(np.asarray(point_xy, dtype=float))
-        return upvp_to_xy(ellipse_boundary(centre, np.eye(2) * TN001_STEP_UPVP**2, float(n_steps) ** 2, n_points))
-    raise ValueError(f"unknown steps method {method!r}; choose one of ellipse, circle")
+    ellipse_set = ellipse_set_of(steps)
+    g = ellipse_set.metric(nominal_cct_K)[0]
+    form = 1e4 * np.array([[g[0], g[1]], [g[1], g[2]]])
+    centre = FROM_XY[ellipse_set.space](np.asarray(point_xy, dtype=float))
+    ring = ellipse_boundary(centre, np.linalg.inv(form), float(n_steps) ** 2, n_points)
+    return TO_XY[ellipse_set.space](ring)
 
 
 def _steps_keys(xy, nominal, chosen, method, centre, flags):
     n = xy.shape[0]
+    ellipse_set = ellipse_set_of(method)
+    confirmed = True
     if np.isfinite(nominal):
-        steps, outside = steps_from_nominal(xy, np.full(n, nominal), method, centre)
-        point = np.asarray(centre_xy(nominal, centre), dtype=float)
-        if method == "ellipse" and outside.any():
-            flags.append("steps_metric_outside_iec_range")
+        steps, outside, unconfirmed = steps_from_nominal(xy, np.full(n, nominal), ellipse_set, centre)
+        point = np.asarray(centre_xy(nominal, centre, ellipse_set), dtype=float)
+        confirmed = not unconfirmed.any()
+        if outside.any():
+            flags.append("steps_metric_outside_set_range")
+        if not confirmed:
+            flags.append("steps_metric_unconfirmed")
     else:
         steps, point = np.full(n, np.nan), np.full(2, np.nan)
         flags.append("lot_not_white")
     keys = {
-        "steps_method": method,
+        "steps_method": method if isinstance(method, str) else "set",
+        "steps_set": ellipse_set.name,
+        "steps_metric_confirmed": confirmed,
         "steps_centre": centre,
         "steps_centre_nominal_cct_K": nominal,
         "steps_centre_chosen": chosen,
@@ -209,10 +221,11 @@ def lot_statistics(ratings, *, nominal_cct_K=None, steps="ellipse", centre="ansi
     nominal_cct_K : float, optional
         The lot's claimed nominal CCT: its centre is the one the steps count from. Default:
         the ANSI C78.377-2017 category nearest the mean point.
-    steps : {"ellipse", "circle"}
-        IEC 60081 ellipses or CIE TN 001 u′v′ circles (:mod:`lampcalc.standards.steps`).
-    centre : {"ansi", "iec"}
-        The ANSI C78.377 target of the nominal CCT, or the IEC 60081 colour centre.
+    steps : {"ellipse", "circle"} or EllipseSet
+        The shipped IEC 60081 ellipses or CIE TN 001 u′v′ circles, or a user's ellipse set
+        (:mod:`lampcalc.standards.ellipse_sets`).
+    centre : {"ansi", "set"}
+        The ANSI C78.377 target of the nominal CCT, or the ellipse set's own colour centre.
     probability : float
         Probability held by the covariance ellipse for a normal distribution.
 
@@ -225,7 +238,7 @@ def lot_statistics(ratings, *, nominal_cct_K=None, steps="ellipse", centre="ansi
     Raises
     ------
     InputError
-        For an empty lot, a nominal CCT outside 2200–6500 K, or an IEC centre that does not exist.
+        For an empty lot, a nominal CCT outside 2200–6500 K, or a set centre that does not exist.
     """
     n = len(ratings)
     if n == 0:

@@ -49,7 +49,13 @@ CLAIMABLE = frozenset(SPREAD_KEYS) | {f"{r}_{s}" for r in LOT_RATINGS for s in S
 STEPS_NOTES = {
     "ellipse": "the IEC 60081 ellipse metric is not confirmed against the published table: confirm it before a dispute",
     "circle": "the CIE TN 001 step (0.0011 in u′v′) is not confirmed against the published note: confirm it before a dispute",
+    "set": "the ellipse set's metric is not confirmed against a published table: confirm it before a dispute",
 }
+
+
+def _steps_note(lot):
+    """What a steps verdict rests on that is not confirmed, or "" when its metric is."""
+    return "" if lot["steps_metric_confirmed"] else STEPS_NOTES[lot["steps_method"]]
 
 
 @dataclass(frozen=True)
@@ -213,7 +219,7 @@ def _check_quantity(claim, lot):
         undecided = "some samples' values are outside the method's validity"
     elif rating in lot["partial_ratings"] and not v["quantity"].endswith("_n"):
         undecided = f"{rating} is missing for some samples"
-    note = STEPS_NOTES[lot["steps_method"]] if "steps" in v["quantity"] else ""
+    note = _steps_note(lot) if "steps" in v["quantity"] else ""
     sign = ">=" if v["bound"] == "at_least" else "<="
     return _result(claim, f"{v['quantity']} {sign} {v['claimed']:g}", v["claimed"], measured, margin, note, undecided)
 
@@ -253,7 +259,7 @@ def check_lot_claims(claims, lot):
                 continue
             steps = np.asarray(samples["sdcm_steps"], dtype=float)
             note = f"{lot['steps_method']} steps from the {lot['steps_centre'].upper()} centre of {centre:g} K"
-            note += f"; {STEPS_NOTES[lot['steps_method']]}"
+            note += f"; {_steps_note(lot)}" if _steps_note(lot) else ""
             results.append(_share_result(claim, steps <= v["within_steps"], f"within {v['within_steps']:g} steps", note))
         else:
             nominal = v["inside_nominal_cct_K"]
