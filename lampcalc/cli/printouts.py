@@ -55,6 +55,7 @@ CRITERIA = {
     "rg_max": ("Rg", "<= {:g}", "{:.1f}", ""),
     "ler_lm_per_W": ("LER", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
     "efficacy_lm_per_W": ("lamp efficacy", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
+    "spectrum": ("spectrum", "{}", "{}", ""),
 }
 RESULT = {True: "holds", False: "FAILS", None: "not shown"}
 

@@ -13,19 +13,22 @@ from .common import (
     rate_batches,
     read_files,
     spectrum_options,
-    write_outputs,
 )
+from .outputs import prepare_outputs, write_outputs
 from .printouts import TABLE_NOTES, rating_table
 
 
-def rate_and_write(files, *, json_out=None, csv_out=None, report_out=None, **reading):
-    """Read, rate, print and write; returns the number of files that failed. ``reading``: see read_files."""
+def rate_and_write(files, *, outputs=None, **reading):
+    """Read, rate, print and write; returns the number of files that failed.
+
+    ``outputs``: from :func:`~lampcalc.cli.outputs.prepare_outputs`; ``reading``: see read_files.
+    """
     batches, errors = read_files(files, **reading)
     if batches:
         ratings = rate_batches(batches)
         click.echo(rating_table(ratings))
         click.echo(TABLE_NOTES)
-        write_outputs(ratings, None, json_out, csv_out, report_out)
+        write_outputs(ratings, None, outputs or {})
         click.echo(CAUTION)
     for message in errors:
         click.echo(f"lampcalc: {message}", err=True)
@@ -38,18 +41,22 @@ def rate_and_write(files, *, json_out=None, csv_out=None, report_out=None, **rea
 @click.argument("paths", nargs=-1, required=True, type=click.Path(exists=True), metavar="PATH...")
 @click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write every rating to this JSON file.")
 @click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write every rating to this CSV file.")
+@click.option("--xlsx", "xlsx_out", type=click.Path(dir_okay=False),
+              help="Write every rating to this Excel workbook (lists in columns of their own).")
 @click.option("--report", "report_out", type=click.Path(dir_okay=False), help="Write a PDF report of every lamp.")
 @spectrum_options
 @fail_on_input_errors
-def rate(paths, json_out, csv_out, report_out, recursive, **reading):
+def rate(paths, json_out, csv_out, xlsx_out, report_out, recursive, **reading):
     """Rate every spectrum in the files (and with -r, folders) given.
 
-    Each file holds a wavelength column and one column per lamp (or lampcalc JSON).
-    Files that cannot be read are reported at the end; the others are still rated.
+    Text tables (one lamp per column or per row), Excel workbooks, IES TM-27-14 documents
+    and lampcalc JSON (docs/spectrum-files.md). Files that cannot be read are reported at
+    the end; the others are still rated. Output folders are created.
     """
     files = collect_files(paths, recursive)
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
-    failed = rate_and_write(files, json_out=json_out, csv_out=csv_out, report_out=report_out, **reading)
+    outputs = prepare_outputs(files, json=json_out, csv=csv_out, xlsx=xlsx_out, report=report_out)
+    failed = rate_and_write(files, outputs=outputs, **reading)
     if failed:
         sys.exit(2)

@@ -113,7 +113,8 @@ def unit_in_header(cell):
     """Split a header cell into a name and a unit: ``"Lamp A [mW/nm]"`` → ``("Lamp A", "mW/nm")``.
 
     A unit is the text in square brackets or parentheses at the end of the cell, or the
-    whole cell. Parentheses that do not hold a unit stay part of the name.
+    whole cell when it is a unit of power (``mW/nm``). Parentheses that do not hold a unit
+    stay part of the name; words such as ``counts`` are units only in brackets.
 
     Returns
     -------
@@ -125,16 +126,17 @@ def unit_in_header(cell):
             name, _, unit = text[:-1].rpartition(opening)
             if opening == "[" or _is_unit(unit):
                 return name.strip(), unit.strip()
-    if text and _is_unit(text):
+    if text and _is_unit(text, words=False):
         return "", text
     return text, None
 
 
-def _is_unit(text):
+def _is_unit(text, words=True):
     try:
-        return parse_unit(text) is not None
+        found = parse_unit(text)
     except ValueError:
         return True
+    return found is not None and (words or found[0] != "relative")
 
 
 def base_unit(quantity):

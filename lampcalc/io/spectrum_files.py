@@ -16,6 +16,7 @@ from .atomic import write_atomic
 from .delimited_text import read_spectra_text
 from .formats import JSON_SUFFIXES, SPDX_SUFFIXES, UNREAD_SPREADSHEETS, XLSX_SUFFIXES
 from .lampcalc_json import read_spectra_json, spectra_to_json
+from .radiometric_units import unit_in_header
 from .spectrum_checks import Where, single_quantity
 from .text_cells import decode_text
 
@@ -80,8 +81,8 @@ def spectra_to_csv(batch):
             raise ValueError("angle_deg is known for some lamps only; the CSV form needs all or none")
         lines.append("# angle_deg: " + " ".join(repr(float(a)) for a in batch.angle_deg))
     for name in batch.names:
-        if any(ch in name for ch in ',"\n'):
-            raise ValueError(f"lamp name {name!r} cannot be written to CSV (comma, quote or newline)")
+        if any(ch in name for ch in ',"\n') or unit_in_header(name) != (name.strip(), None) or name != name.strip():
+            raise ValueError(f"lamp name {name!r} cannot be written to CSV (comma, quote, newline, or read as a unit)")
     lines.append(",".join(["wavelength_nm", *batch.names]))
     for wl, row in zip(batch.wavelength_nm, batch.values.T):
         lines.append(",".join([repr(float(wl)), *(repr(float(v)) for v in row)]))
