@@ -8,6 +8,7 @@ footer lines after it. See :mod:`~lampcalc.io.spectrum_table` for how the table 
 and ``docs/spectrum-files.md`` for the forms. Reading is linear in the size of the text.
 """
 
+import re
 from pathlib import Path
 
 from .spectrum_checks import Where
@@ -15,6 +16,7 @@ from .spectrum_table import Rows, read_table
 from .text_cells import choose_delimiter, split_cells, strip_comment
 
 _DATA_START = frozenset("0123456789+-.\"'")
+_DIGIT_COMMA_DIGIT = re.compile(r"[0-9],[0-9]")
 
 
 def _sample_line(content):
@@ -42,7 +44,7 @@ def text_rows(text, where):
     if delimiter != ",":
         # Decimal commas anywhere in the table's lines decide for the whole file.
         decimal_comma = decimal_comma or any(
-            "," in line for _, line in content if line[:1] in _DATA_START and (delimiter is None or delimiter in line)
+            _DIGIT_COMMA_DIGIT.search(line) for _, line in content if delimiter is None or delimiter in line
         )
     cells, numbers, fast, broken = [], [], [], {}
     for number, line in content:

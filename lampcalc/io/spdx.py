@@ -108,13 +108,18 @@ def read_spectra_spdx(raw, path="<spdx>", *, quantity=None):
             )
         quantity = said.lower()
     header = sd.header
-    name = next((v.strip() for v in (header.catalog_number, header.description) if v and v.strip()), Path(str(path)).stem)
-    maker = (header.manufacturer or "").strip()
+    name = next((v.strip() for v in (header.catalog_number, header.description) if _given(v)), Path(str(path)).stem)
+    maker = header.manufacturer.strip() if _given(header.manufacturer) else ""
     return build_batch(
         wl, values[None, :], (name,), quantity, where=where,
         lamp_places=[f"spectral distribution{' of ' + maker if maker else ''}"],
         value_place=lambda k, i: places[i],
     )
+
+
+def _given(text):
+    """True for a header field that says something ("N/A" and the like say nothing)."""
+    return bool(text) and text.strip().lower() not in ("", "n/a", "na", "none", "-", "unknown")
 
 
 def write_spectra_spdx(batch, path, *, manufacturer=None, description=None):
@@ -147,6 +152,7 @@ def write_spectra_spdx(batch, path, *, manufacturer=None, description=None):
         sd = SpectralDistribution_IESTM2714(
             header=header, spectral_quantity=quantity, data=batch.values[0], domain=batch.wavelength_nm,
         )
-        with atomic_path(path) as tmp:
+        # colour-science sets NumPy's 1.13 print style, whose str() keeps 12 digits: write every digit.
+        with atomic_path(path) as tmp, np.printoptions(legacy=False):
             sd.path = tmp
             sd.write()

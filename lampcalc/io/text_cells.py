@@ -14,7 +14,7 @@ import re
 #: Marks that start a comment line.
 COMMENT_MARKS = ("#", "%", "//")
 
-_NUMBER = re.compile(r"[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?")
+_NUMBER = re.compile(r"[+-]?(?:[0-9]+(?:\.[0-9]*)?|\.[0-9]+)(?:[eE][+-]?[0-9]+)?")
 _NONFINITE = re.compile(r"[+-]?(?:nan|inf|infinity)", re.IGNORECASE)
 _BOMS = (
     (b"\xef\xbb\xbf", "utf-8"),
