@@ -16,6 +16,33 @@ from .common import Failure, write_report_file
 KINDS = {"json": ".json", "csv": ".csv", "xlsx": ".xlsx", "report": ".pdf"}
 
 
+def writable(path, option, suffix=None):
+    """``path`` as a Path, its folder created and shown writable (a file is made there and removed).
+
+    Raises
+    ------
+    Failure
+        For a folder, a wrong suffix (when ``suffix`` is given), or a folder that cannot be
+        made or written in.
+    """
+    import os
+    import tempfile
+
+    path = Path(path)
+    if path.is_dir():
+        raise Failure(f"{path}: is a folder; {option} needs a file name")
+    if suffix and path.suffix.lower() != suffix:
+        raise Failure(f"{path}: {option} writes a {suffix} file; give the name that suffix")
+    try:
+        path.parent.mkdir(parents=True, exist_ok=True)
+        fd, probe = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".probe", dir=path.parent)
+        os.close(fd)
+        os.unlink(probe)
+    except OSError as err:
+        raise Failure(f"{path}: cannot write there ({err.strerror or err})") from None
+    return path
+
+
 def prepare_outputs(inputs=(), **paths):
     """``{kind: Path}`` of the outputs asked for, each checked writable; folders are created.
 
@@ -25,30 +52,18 @@ def prepare_outputs(inputs=(), **paths):
         For a path that is a folder, a folder that cannot be made or written in, a path
         given for two outputs, or an output that is also an input.
     """
-    import os
-    import tempfile
-
-    outputs = {kind: Path(p) for kind, p in paths.items() if p}
-    seen = {}
+    outputs, seen = {}, {}
     given = {Path(i).resolve() for i in inputs}
-    for kind, path in outputs.items():
-        resolved = path.resolve()
+    for kind, path in paths.items():
+        if not path:
+            continue
+        resolved = Path(path).resolve()
         if resolved in seen:
             raise Failure(f"{path}: given for both --{seen[resolved]} and --{kind}")
         seen[resolved] = kind
         if resolved in given:
             raise Failure(f"{path}: is one of the input files; choose another name for --{kind}")
-        if path.is_dir():
-            raise Failure(f"{path}: is a folder; --{kind} needs a file name")
-        if kind in ("xlsx", "report") and path.suffix.lower() != KINDS[kind]:
-            raise Failure(f"{path}: --{kind} writes a {KINDS[kind]} file; give the name that suffix")
-        try:
-            path.parent.mkdir(parents=True, exist_ok=True)
-            fd, probe = tempfile.mkstemp(prefix=f".{path.name}.", suffix=".probe", dir=path.parent)
-            os.close(fd)
-            os.unlink(probe)
-        except OSError as err:
-            raise Failure(f"{path}: cannot write there ({err.strerror or err})") from None
+        outputs[kind] = writable(path, f"--{kind}", KINDS[kind] if kind in ("xlsx", "report") else None)
     return outputs
 
 

@@ -23,6 +23,8 @@ def rate_and_write(files, *, outputs=None, **reading):
 
     ``outputs``: from :func:`~lampcalc.cli.outputs.prepare_outputs`; ``reading``: see read_files.
     """
+    from ..verdicts.claims import duplicate_names
+
     batches, errors = read_files(files, **reading)
     if batches:
         ratings = rate_batches(batches)
@@ -30,6 +32,9 @@ def rate_and_write(files, *, outputs=None, **reading):
         click.echo(TABLE_NOTES)
         write_outputs(ratings, None, outputs or {})
         click.echo(CAUTION)
+        duplicates = duplicate_names(ratings)
+        if duplicates:
+            click.echo(f"lampcalc: note: {duplicates}", err=True)
     for message in errors:
         click.echo(f"lampcalc: {message}", err=True)
     if errors:

@@ -48,6 +48,8 @@ def read_spectra(path, *, wavelength_unit=None, quantity=None):
     if suffix in UNREAD_SPREADSHEETS:
         raise where(f"{UNREAD_SPREADSHEETS[suffix]} is not read; save it as .xlsx or CSV")
     try:
+        if Path(path).exists() and not Path(path).is_dir() and not Path(path).is_file():
+            raise where("is not a regular file (a device or a pipe); not read")
         raw = Path(path).read_bytes()
     except IsADirectoryError:
         raise where("is a folder; pass -r to read the spectrum files inside it") from None

@@ -226,10 +226,9 @@ def read_table(rows, where, stem, *, wavelength_unit=None, quantity=None):
         unit_cells, first_data_row = None, start
     n_lamps = values.shape[0]
 
-    header_places = [lamp_places[k] for k in range(n_lamps)]
     names, units, angles = [], [], []
     for k in range(n_lamps):
-        name, unit, angle = _lamp_header(label_cells[k + 1], where, header_places[k])
+        name, unit, angle = _lamp_header(label_cells[k + 1], where, lamp_places[k])
         if unit_cells is not None:
             unit = unit_in_header(str(unit_cells[k + 1]))[1]
         names.append(name or f"{stem}_{k + 1}")
@@ -244,9 +243,9 @@ def read_table(rows, where, stem, *, wavelength_unit=None, quantity=None):
     )
     file_unit = meta.text("unit")
     units = [u if u is not None else file_unit for u in units]
-    quantities, scales = _quantities(units, meta.quantity(), quantity, header_places, where)
+    quantities, scales = _quantities(units, meta.quantity(), quantity, lamp_places, where)
 
-    wl_header = unit_in_header(str(label_cells[0]))
+    wl_header = unit_in_header(str(unit_cells[0] if unit_cells is not None else label_cells[0]))
     declared = {"nm": "nm", "um": "um", "µm": "um", "μm": "um"}.get((wl_header[1] or "").strip())
     check_wavelengths(wl, wl_places, where)
     unit = wavelength_unit or meta.wavelength_unit() or declared or "nm"
@@ -259,7 +258,7 @@ def read_table(rows, where, stem, *, wavelength_unit=None, quantity=None):
         if clash.any():
             k = int(np.flatnonzero(clash)[0])
             raise where(f"the lamp's name says {angles[k]:g} deg, the file's angle_deg line {file_angles[k]:g}",
-                        header_places[k], names[k])
+                        lamp_places[k], names[k])
         angles = np.where(np.isfinite(angles), angles, file_angles)
     return build_batch(
         wl, values * scales[:, None], tuple(names), quantities, where=where, lamp_places=lamp_places,

@@ -114,3 +114,34 @@ def test_no_warning_reaches_the_terminal(tmp_path):
     assert result.returncode == 0, result.stderr
     assert "Warning:" not in result.stderr and "warnings.warn" not in result.stderr
     assert all(line.startswith("wrote ") for line in result.stderr.splitlines()), result.stderr
+
+
+def test_figure_and_cct_outputs_make_their_folders(run, tmp_path):
+    figure = tmp_path / "figures" / "locus.png"
+    assert run("plot", "locus", *demo_files(), "-o", figure).exit_code == 0
+    assert figure.exists()
+    table = tmp_path / "cct" / "out.csv"
+    assert run("cct", "--xy", "0.3127", "0.3290", "--csv", table).exit_code == 0
+    assert "cct_K" in table.read_text()
+
+
+def test_rate_tells_names_carried_by_two_files(run, tmp_path):
+    twin = tmp_path / "twin.tsv"
+    halogen = next(f for f in demo_files() if "halogen" in f.name)
+    twin.write_bytes(halogen.read_bytes())
+    result = run("rate", halogen, twin)
+    assert result.exit_code == 0
+    assert "note: 1 lamp name(s) belong to more than one spectrum: 'QF-HAL-2900'" in result.stderr
+
+
+def test_folder_notes_files_passed_over_and_reads_workbooks(run, tmp_path):
+    import shutil
+
+    shutil.copy(next(f for f in demo_files() if "halogen" in f.name), tmp_path)
+    shutil.copy(__import__("pathlib").Path(__file__).parents[1] / "io" / "corpus" / "sphere.xlsx", tmp_path)
+    (tmp_path / "photo.png").write_bytes(b"\x89PNG")
+    (tmp_path / "~$sphere.xlsx").write_bytes(b"lock")
+    result = run("rate", "-r", tmp_path)
+    assert result.exit_code == 0, result.output
+    assert "passed over 1 file(s) in folders that are not spectrum files" in result.stderr and "photo.png" in result.stderr
+    assert "QF-A" in result.stdout and "QF-HAL-2900" in result.stdout
