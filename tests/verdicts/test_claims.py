@@ -133,6 +133,7 @@ def test_unknown_lamp_suggests_and_the_others_are_checked(run, write, tmp_path):
     assert verdicts["QF-HAL-2090"]["checks"][0]["criterion"] == "spectrum"
     assert verdicts["QF-HAL-2090"]["checks"][0]["pass"] is None
     assert "claimed but no spectrum: QF-HAL-2090" in result.stdout
+    assert "QF-HAL-2090: no spectrum among the files given; its claims are not checked" in result.stdout
 
 
 def test_claim_matching_two_spectra_is_refused(run, write, tmp_path):
