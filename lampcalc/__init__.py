@@ -21,6 +21,7 @@ _EXPORTS = {
     "read_spectra_text": "io.delimited_text",
     "write_spectra_csv": "io.spectrum_files",
     "write_spectra_json": "io.spectrum_files",
+    "write_spectra_spdx": "io.spdx",
     "GRID_NM": "spectra.resampling",
     "resample": "spectra.resampling",
     "spectral_radiance": "physics.blackbody",

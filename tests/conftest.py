@@ -17,7 +17,7 @@ BAD_INPUTS = {
     "non_numeric": (b"nm,a\n380,1\n385,abc\n390,1\n", "line 3, column 2 ('a'): 'abc' is not a number"),
     "ragged": (b"nm,a,b\n380,1,1\n385,1\n390,1,1\n", "line 3: ragged row: 2 fields where the table has 3"),
     "decreasing": (b"380,1\n390,1\n385,1\n", "line 3, column 1: wavelength 385 is below the previous one, 390"),
-    "duplicate": (b"380,1\n385,1\n385,1\n", "line 3, column 1: duplicate wavelength 385 (also on line 2)"),
+    "duplicate": (b"380,1\n385,1\n385,1\n", "line 3, column 1: duplicate wavelength 385 (also at line 2, column 1)"),
     "nan": (b"nm,a\n380,1\n385,nan\n", "line 3, column 2 ('a'): 'nan' is not finite"),
     "inf": (b"nm,a\n380,1\n385,inf\n", "'inf' is not finite"),
     "all_zero": (b"nm,a\n380,0\n385,0\n390,0\n", "column 2 ('a'): the spectrum is zero"),

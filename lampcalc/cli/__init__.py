@@ -31,5 +31,12 @@ for _command in (planck, cct, rate, check, lot, compare, plot, demo):
 
 
 def main(argv=None):
-    """Entry point of the ``lampcalc`` console script."""
-    cli.main(args=argv, prog_name="lampcalc")
+    """Entry point of the ``lampcalc`` console script: SIGINT and SIGTERM end it cleanly."""
+    from . import interrupts
+
+    interrupts.install()
+    try:
+        cli.main(args=argv, prog_name="lampcalc")
+    except interrupts.Interrupted as interruption:
+        click.echo(f"lampcalc: interrupted ({interruption}); no output was changed", err=True)
+        interrupts.end_by(interruption)

@@ -1,6 +1,7 @@
 """``lampcalc cct``: CCT and Duv of chromaticities given as options or in a CSV file."""
 
 import sys
+from pathlib import Path
 
 import click
 
@@ -76,6 +77,12 @@ def cct(csv_file, xy, uv, upvp, csv_out, json_out, observer):
     if not csv_file and not (xy or uv or upvp):
         raise Failure("nothing to convert: give a FILE.csv or points with --xy, --uv or --upvp")
     out_path, form = (csv_out, "csv") if csv_out else (json_out, "json") if json_out else (None, None)
+    if out_path:
+        from .outputs import writable
+
+        if csv_file and Path(out_path).resolve() == Path(csv_file).resolve():
+            raise Failure(f"{out_path}: is the input file; choose another name for --{form}")
+        writable(out_path, f"--{form}")
     problems, shown = [], []
     with open_rows(out_path, form) if out_path else contextlib.nullcontext() as writer:
         if csv_file:

@@ -80,15 +80,31 @@ def flagged(value, spec, doubtful):
     return f"({text})" if doubtful and text != "-" else text
 
 
-def collect_files(paths, recursive):
-    files = []
+def collect_files(paths, recursive, exclude=()):
+    """The spectrum files among ``paths``, and with -r in their folders; ``exclude`` is never read as spectra.
+
+    Files in folders that are not spectrum files (by suffix) are passed over with one note;
+    hidden files and a spreadsheet program's lock files (``~$book.xlsx``) without one.
+    """
+    skip = {Path(p).resolve() for p in exclude}
+    files, passed_over = [], []
     for p in map(Path, paths):
         if p.is_dir():
             if not recursive:
                 raise Failure(f"{p}: is a folder; pass -r to read the spectrum files inside it")
-            files += sorted(f for f in p.rglob("*") if f.is_file() and f.suffix.lower() in SPECTRUM_SUFFIXES)
-        else:
+            for f in sorted(p.rglob("*")):
+                if not f.is_file() or f.name.startswith((".", "~$")) or f.resolve() in skip:
+                    continue
+                (files if f.suffix.lower() in SPECTRUM_SUFFIXES else passed_over).append(f)
+        elif p.resolve() not in skip:
             files.append(p)
+    if passed_over:
+        shown = ", ".join(str(f) for f in passed_over[:3]) + (" …" if len(passed_over) > 3 else "")
+        click.echo(
+            f"lampcalc: passed over {len(passed_over)} file(s) in folders that are not spectrum files "
+            f"({', '.join(SPECTRUM_SUFFIXES)}): {shown}",
+            err=True,
+        )
     return files
 
 
@@ -134,7 +150,8 @@ def rate_batches(batches, nominal=None, sets=None):
     if batch.n_lamps > 200 and sys.stderr.isatty():
         click.echo(f"rating {batch.n_lamps} lamps ...", err=True)
     names = batch.names
-    nominal_cct = None if nominal is None else [nominal.get(name, float("nan")) for name in names]
+    # claims name their lamps without regard to case: ``nominal`` is keyed by casefolded name
+    nominal_cct = None if nominal is None else [nominal.get(name.casefold(), float("nan")) for name in names]
     bin_set, ellipse_set = sets or (None, None)
     return rate_spectra(batch, nominal_cct_K=nominal_cct, bin_set=bin_set, ellipse_set=ellipse_set)
 
@@ -209,7 +226,8 @@ def spectrum_options(fn):
     return fn
 
 
-def write_report_file(path, ratings, verdicts=None):
+def write_report_file(path, ratings, verdicts=None, shown_as=None):
+    """Write the PDF report to ``path`` (told as ``shown_as``, the final name, when ``path`` is temporary)."""
     from ..report.pdf import write_report
 
     n_pages = len(ratings) + 2
@@ -218,15 +236,4 @@ def write_report_file(path, ratings, verdicts=None):
             pages = write_report(path, ratings, verdicts, progress=bar.update)
     else:
         pages = write_report(path, ratings, verdicts)
-    click.echo(f"wrote {path} ({pages} pages)", err=True)
-
-
-def write_outputs(ratings, verdicts, json_out, csv_out, report_out):
-    """The files a command was asked for: JSON and CSV of the verdicts (else the ratings), the report."""
-    table = verdicts or ratings
-    for path, text in ((json_out, table.to_json), (csv_out, table.to_csv)):
-        if path:
-            write_text(path, text())
-            click.echo(f"wrote {path}", err=True)
-    if report_out:
-        write_report_file(report_out, ratings, verdicts)
+    click.echo(f"wrote {shown_as or path} ({pages} pages)", err=True)

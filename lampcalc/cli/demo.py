@@ -7,6 +7,7 @@ import click
 
 from .check import check_and_write
 from .common import fail_on_input_errors
+from .outputs import prepare_outputs
 from .rate import rate_and_write
 
 
@@ -32,13 +33,12 @@ def demo(out_dir):
     out.mkdir(parents=True, exist_ok=True)
     files = demo_files()
     click.echo(f"Demo: {len(files)} spectrum files of a fictional supplier (lampcalc's spectra_demo/)\n")
-    if rate_and_write(files, json_out=out / "ratings.json", csv_out=out / "ratings.csv"):
+    rate_outputs = prepare_outputs(files, json=out / "ratings.json", csv=out / "ratings.csv", xlsx=out / "ratings.xlsx")
+    check_outputs = prepare_outputs(files, json=out / "checks.json", csv=out / "checks.csv", report=out / "report.pdf")
+    if rate_and_write(files, outputs=rate_outputs):
         sys.exit(2)
     click.echo(f"\nChecking the supplier's claims ({demo_claims().name}):\n")
-    status, ratings = check_and_write(
-        files, demo_claims(), json_out=out / "checks.json", csv_out=out / "checks.csv",
-        report_out=out / "report.pdf", quiet_table=True,
-    )
+    status, ratings = check_and_write(files, demo_claims(), outputs=check_outputs, quiet_table=True)
     if status == 2:
         sys.exit(2)
     demo_figures(ratings, out)

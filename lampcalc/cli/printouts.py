@@ -63,6 +63,7 @@ CRITERIA = {
     "rg_max": ("Rg", "<= {:g}", "{:.1f}", ""),
     "ler_lm_per_W": ("LER", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
     "efficacy_lm_per_W": ("lamp efficacy", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
+    "spectrum": ("spectrum", "{}", "{}", ""),
 }
 RESULT = {True: "holds", False: "FAILS", None: "not shown"}
 
@@ -82,7 +83,10 @@ def verdict_text(verdicts):
             margin = "-" if c["margin"] is None or not math.isfinite(c["margin"]) else f"{c['margin']:+.4g} {unit}".strip()
             rows.append([label, claimed, measured, margin, RESULT[c["pass"]], c["note"]])
         failing = sum(c["pass"] is not True for c in lamp["checks"])
-        head = f"{lamp['lamp']}: " + ("every claim holds" if lamp["pass"] else f"{failing} of {len(lamp['checks'])} checks do not hold")
+        if [c["criterion"] for c in lamp["checks"]] == ["spectrum"]:
+            head = f"{lamp['lamp']}: no spectrum among the files given; its claims are not checked"
+        else:
+            head = f"{lamp['lamp']}: " + ("every claim holds" if lamp["pass"] else f"{failing} of {len(lamp['checks'])} checks do not hold")
         table = format_table(["claim", "claimed", "measured", "margin", "result", "note"], rows, "lllrll")
         blocks.append(head + "\n" + "\n".join("  " + line for line in table.splitlines()))
     blocks.append(

@@ -82,7 +82,9 @@ class Ratings:
     """Ratings of a batch of lamps: columns of :data:`FIELDS`, one row per lamp.
 
     ``ratings[key]`` is the column (a NumPy array, or a tuple for strings and lists);
-    :meth:`records` gives one dict per lamp with JSON-ready values (NaN → None).
+    :meth:`records` gives one dict per lamp with JSON-ready values (NaN → None). Like a
+    DataFrame, ``"cct_K" in ratings`` and iteration go over the keys and ``len`` is the
+    number of lamps; :meth:`to_pandas` gives a DataFrame with list fields spread into columns.
     ``extras`` keeps what figures need but files do not: the spectra on the grid
     (``"batch"``) and the TM-30 bin means (``"ref_ab_bins"``, ``"test_ab_bins"``).
     """
@@ -96,6 +98,22 @@ class Ratings:
 
     def __len__(self):
         return len(self.columns["name"])
+
+    def __contains__(self, key):
+        return key in self.columns
+
+    def __iter__(self):
+        return iter(self.keys())
+
+    def keys(self):
+        """The output keys present, in :data:`FIELDS` order."""
+        return [k for k in FIELDS if k in self.columns] + [k for k in self.columns if k not in FIELDS]
+
+    def to_pandas(self):
+        """A pandas DataFrame, one row per lamp; list fields spread into columns (pandas optional)."""
+        from .wide_columns import to_pandas
+
+        return to_pandas(self)
 
     def records(self):
         """One dict per lamp, keys in :data:`FIELDS` order, NaN as None."""

@@ -1,7 +1,8 @@
 """Supplier claims: reading a claims file and checking each claim against the ratings.
 
-A claims file is a CSV with one row per lamp, matched to the spectra by the ``lamp``
-column (the lamp name); a blank cell means no claim. Columns (``docs/claims.md``):
+A claims file is a table (comma, semicolon or tab separated) with one row per lamp, matched
+to the spectra by the ``lamp`` column (the lamp name, without regard to case); a blank cell
+means no claim. Columns (``docs/claims.md``):
 
 ===========================  ====================================================
 column                       claim
@@ -18,6 +19,7 @@ min_efficacy_lm_per_W        lamp luminous efficacy at least (needs a spectrum i
 """
 
 import csv
+import difflib
 import io
 import json
 import math
@@ -26,7 +28,7 @@ from dataclasses import dataclass, field
 import numpy as np
 
 from ..errors import InputError
-from ..io.serialise import plain
+from ..io.serialise import cell, plain
 from ..standards.ansi_bins import DUV_TOLERANCE, FLEXIBLE_NOTE, ansi_bin_set, category, quadrangle_margin
 from ..standards.bin_sets import margins
 from ..standards.ellipse_sets import shipped_ellipse_set
@@ -48,6 +50,19 @@ CLAIM_COLUMNS = {
 }
 
 
+#: Lowest valid value of each claim column, and whether the bound itself is allowed. Indices
+#: (Ra, R9, Rf) may be negative: "R9 at least -10" is a claim. Columns not listed have no bound.
+_LOWEST = {
+    "nominal_cct_K": (0.0, False),
+    "max_sdcm_steps": (0.0, True),
+    "min_rg": (0.0, True),
+    "max_rg": (0.0, True),
+    "min_ler_lm_per_W": (0.0, True),
+    "electrical_W": (0.0, False),
+    "min_efficacy_lm_per_W": (0.0, True),
+}
+
+
 @dataclass
 class Claim:
     """The claims of one lamp, as read (None where the cell is blank)."""
@@ -57,66 +72,108 @@ class Claim:
     values: dict = field(default_factory=dict)
 
 
+def _claims_rows(path):
+    """The file's :class:`Where` and ``[(line number, cells), …]`` of its non-blank, non-comment lines."""
+    from ..io.spectrum_checks import Where
+    from ..io.text_cells import decode_text, split_cells
+
+    where = Where(path)
+    try:
+        with open(path, "rb") as handle:
+            raw = handle.read()
+    except OSError as err:
+        raise where(f"cannot be read ({err.strerror or err})") from None
+    text = decode_text(raw, where)
+    lines = [(n, line.strip()) for n, line in enumerate(text.splitlines(), start=1)]
+    lines = [(n, line) for n, line in lines if line and not line.startswith("#")]
+    if not lines:
+        raise where("the claims file is empty")
+    head = lines[0][1]
+    delimiter = next((d for d in ("\t", ";") if d in head), ",")
+    rows = []
+    for number, line in lines:
+        try:
+            cells = split_cells(line, delimiter)
+        except ValueError as err:
+            raise where(f"cannot be split into cells ({err})", f"line {number}") from None
+        if line.endswith(delimiter):
+            cells.append("")  # split_cells drops a trailing empty cell; a claims row keeps it
+        rows.append((number, cells))
+    return where, rows
+
+
+def _claim_value(column, text, where, place):
+    from ..io.text_cells import parse_number, show
+
+    try:
+        value = parse_number(text, "," in text)
+    except ValueError as err:
+        raise where(f"{show(text)} {err}", place) from None
+    lowest, allowed = _LOWEST.get(column, (-math.inf, True))
+    if value < lowest or (value == lowest and not allowed):
+        bound = f"{'at least' if allowed else 'above'} {lowest:g}"
+        raise where(f"{show(text)} is not a valid {CLAIM_COLUMNS[column]}: it must be {bound}", place)
+    return value
+
+
 def read_claims(path):
-    """Read a claims CSV: ``{lamp name: Claim}``.
+    """Read a claims file: ``{lamp name: Claim}``.
+
+    Comma-, semicolon- or tab-separated, UTF-8 or UTF-16, decimal commas where the separator
+    allows them (or in quoted cells); column names are matched without regard to case.
 
     Raises
     ------
     InputError
-        For a missing ``lamp`` column, an unknown column, a malformed or negative number,
-        a blank lamp name or a lamp named twice; the message names the line and column.
+        One line naming the file, the line and column: a missing ``lamp`` column, an unknown
+        or repeated column, a ragged row, a cell that is not a valid number (of any size),
+        a blank lamp name, a lamp claimed twice, and a file that claims nothing (a header and
+        no rows, or rows with no claim: a truncated file must not look like a pass).
     """
-    try:
-        with open(path, encoding="utf-8-sig", newline="") as handle:
-            text = handle.read()
-    except (OSError, UnicodeDecodeError) as err:
-        raise InputError(f"{path}: cannot be read as a text CSV file ({err})") from None
-    lines = [(i + 1, line) for i, line in enumerate(text.splitlines()) if line.strip() and not line.lstrip().startswith("#")]
-    if not lines:
-        raise InputError(f"{path}: the claims file is empty")
-    rows = list(csv.reader([line for _, line in lines]))
-    header = [h.strip() for h in rows[0]]
-    first_line = lines[0][0]
+    where, rows = _claims_rows(path)
+    canonical = {c.lower(): c for c in CLAIM_COLUMNS}
+    first_line, header = rows[0]
+    while len(header) > 1 and header[-1] == "":
+        header.pop()
+    shown = ", ".join(h[:40] for h in header[:12])
+    header = [canonical.get(h.strip().lower(), h.strip()) for h in header]
     if "lamp" not in header:
-        raise InputError(f"{path}, line {first_line}: no 'lamp' column (columns: {', '.join(header)})")
+        raise where(f"no 'lamp' column (columns: {shown})", f"line {first_line}")
     unknown = [h for h in header if h not in CLAIM_COLUMNS]
     if unknown:
-        raise InputError(
-            f"{path}, line {first_line}: unknown column {unknown[0]!r}; the columns are {', '.join(CLAIM_COLUMNS)}"
-        )
-    if len(set(header)) != len(header):
-        twice = next(h for h in header if header.count(h) > 1)
-        raise InputError(f"{path}, line {first_line}: column {twice!r} appears twice")
+        raise where(f"unknown column {unknown[0][:40]!r}; the columns are {', '.join(CLAIM_COLUMNS)}", f"line {first_line}")
+    twice = next((h for h in header if header.count(h) > 1), None)
+    if twice:
+        raise where(f"column {twice!r} appears twice", f"line {first_line}")
     claims = {}
-    for (number, _), row in zip(lines[1:], rows[1:]):
+    for number, row in rows[1:]:
+        while len(row) > len(header) and row[-1] == "":
+            row.pop()
         if len(row) != len(header):
-            raise InputError(f"{path}, line {number}: {len(row)} fields where the header has {len(header)}")
-        cells = dict(zip(header, (c.strip() for c in row)))
+            raise where(f"{len(row)} fields where the header has {len(header)}", f"line {number}")
+        cells = dict(zip(header, row))
         lamp = cells.pop("lamp")
         if not lamp:
-            raise InputError(f"{path}, line {number}: the lamp name is blank")
-        if lamp in claims:
-            raise InputError(f"{path}, line {number}: lamp {lamp!r} is claimed twice (also line {claims[lamp].line})")
-        values = {}
-        for column, cell in cells.items():
-            if not cell:
-                continue
-            try:
-                value = float(cell)
-            except ValueError:
-                value = math.nan
-            if not math.isfinite(value) or value < 0:
-                raise InputError(
-                    f"{path}, line {number}, column {column!r}: {cell!r} is not a non-negative number"
-                )
-            values[column] = value
+            raise where("the lamp name is blank", f"line {number}")
+        key = lamp.casefold()
+        if key in claims:
+            raise where(f"lamp {lamp[:60]!r} is claimed twice (also line {claims[key].line})", f"line {number}")
+        values = {
+            column: _claim_value(column, text, where, f"line {number}, column {column!r}")
+            for column, text in cells.items()
+            if text
+        }
         if "nominal_cct_K" in values:
             try:
                 category(values["nominal_cct_K"])
             except InputError as err:
-                raise InputError(f"{path}, line {number}, column 'nominal_cct_K': {err}") from None
-        claims[lamp] = Claim(lamp, number, values)
-    return claims
+                raise where(str(err), f"line {number}, column 'nominal_cct_K'") from None
+        claims[key] = Claim(lamp, number, values)
+    if not claims:
+        raise where("has a header but no lamps: nothing is claimed (a truncated file?)", f"line {first_line}")
+    if not any(c.values for c in claims.values()):
+        raise where("names lamps but claims nothing: every claim cell is blank (a truncated file?)")
+    return {c.lamp: c for c in claims.values()}
 
 
 def _check(criterion, claimed, measured, margin, note=""):
@@ -248,8 +305,9 @@ def check_lamp(claim, ratings, i, ellipse_set=None, sdcm_centre="ansi", bin_set=
 class Verdicts:
     """Results of checking a claims file against a batch's ratings."""
 
-    lamps: list  # [{"lamp", "pass", "checks": [...]}] for claimed lamps, in ratings order
+    lamps: list  # [{"lamp", "pass", "checks": [...]}] for claimed lamps, in ratings order, then claims without a spectrum
     unclaimed: list  # names of rated lamps with no claim
+    missing: list = field(default_factory=list)  # lamps claimed that have no spectrum
 
     @property
     def all_hold(self):
@@ -267,6 +325,8 @@ class Verdicts:
         )
         if undecided:
             text += f", {undecided} cannot be checked"
+        if self.missing:
+            text += f"; claimed but no spectrum: {', '.join(self.missing)}"
         if self.unclaimed:
             text += f"; not claimed: {', '.join(self.unclaimed)}"
         return text
@@ -282,39 +342,83 @@ class Verdicts:
         ]
         return json.dumps(out, indent=1, allow_nan=False) + "\n"
 
+    def table(self):
+        """Header and rows of the verdicts, one row per check (numbers as floats, None when absent)."""
+        header = ["lamp", "criterion", "claimed", "measured", "margin", "pass", "note"]
+        result = {True: "pass", False: "fail", None: "cannot check"}
+        rows = [
+            [lamp["lamp"], c["criterion"], *(None if c[k] is None else float(c[k]) for k in ("claimed", "measured", "margin")),
+             result[c["pass"]], c["note"]]
+            for lamp in self.lamps
+            for c in lamp["checks"]
+        ]
+        return header, rows
+
     def to_csv(self):
         buffer = io.StringIO()
         writer = csv.writer(buffer, lineterminator="\n")
-        writer.writerow(["lamp", "criterion", "claimed", "measured", "margin", "pass", "note"])
-        for lamp in self.lamps:
-            for c in lamp["checks"]:
-                writer.writerow(
-                    [lamp["lamp"], c["criterion"], *("" if c[k] is None else repr(float(c[k])) for k in ("claimed", "measured", "margin")),
-                     {True: "pass", False: "fail", None: "cannot check"}[c["pass"]], c["note"]]
-                )
+        header, rows = self.table()
+        writer.writerow(header)
+        writer.writerows([cell(v) for v in row] for row in rows)
         return buffer.getvalue()
+
+
+def _suggestion(name, names):
+    """ "; did you mean 'X'?" for the spectrum name closest to ``name``, or ""."""
+    folded = {n.casefold(): n for n in names}
+    close = difflib.get_close_matches(name.casefold(), list(folded), n=1, cutoff=0.6)
+    return f"; did you mean {folded[close[0]]!r}?" if close else ""
+
+
+def duplicate_names(ratings):
+    """One line telling lamp names that more than one spectrum carries, or None."""
+    where = {}
+    for name, source in zip(ratings["name"], ratings["source"]):
+        where.setdefault(name.casefold(), []).append((name, source))
+    twice = [found for found in where.values() if len(found) > 1]
+    if not twice:
+        return None
+    shown = "; ".join(f"{found[0][0]!r} ({', '.join(s for _, s in found[:3])})" for found in twice[:3])
+    more = f"; and {len(twice) - 3} more" if len(twice) > 3 else ""
+    return f"{len(twice)} lamp name(s) belong to more than one spectrum: {shown}{more}"
 
 
 def check_claims(claims, ratings, claims_path="claims", **options):
     """Check every claim against the ratings.
 
+    A claim names its lamp without regard to case. A claim whose lamp has no spectrum is
+    kept as a lamp whose one check, ``spectrum``, cannot be decided (with the closest name
+    suggested), and the other claims are still checked.
+
     Raises
     ------
     InputError
-        When a claim names a lamp that has no spectrum (the message names its line).
+        When a claim matches more than one spectrum (the message names both sources).
     """
-    names = list(ratings["name"])
+    names, sources = list(ratings["name"]), list(ratings["source"])
+    index = {}
+    for i, name in enumerate(names):
+        index.setdefault(name.casefold(), []).append(i)
+    matched, missing = {}, []
     for claim in claims.values():
-        if claim.lamp not in names:
+        found = index.get(claim.lamp.casefold(), [])
+        if len(found) > 1:
             raise InputError(
-                f"{claims_path}, line {claim.line}: lamp {claim.lamp!r} has no spectrum among the files given"
+                f"{claims_path}, line {claim.line}: lamp {claim.lamp!r} matches more than one spectrum: "
+                f"{sources[found[0]]} and {sources[found[1]]}; rename one of them"
             )
+        if found:
+            matched[found[0]] = claim
+        else:
+            missing.append(claim)
     lamps, unclaimed = [], []
     for i, name in enumerate(names):
-        if name not in claims:
+        if i not in matched or not matched[i].values:
             unclaimed.append(name)
             continue
-        checks = check_lamp(claims[name], ratings, i, **options)
+        checks = check_lamp(matched[i], ratings, i, **options)
         lamps.append({"lamp": name, "pass": all(c["pass"] is True for c in checks), "checks": checks})
-    return Verdicts(lamps, unclaimed)
-
+    for claim in missing:
+        note = f"line {claim.line}: no spectrum named {claim.lamp!r} among the files given{_suggestion(claim.lamp, names)}"
+        lamps.append({"lamp": claim.lamp, "pass": False, "checks": [_check("spectrum", None, None, None, note)]})
+    return Verdicts(lamps, unclaimed, [c.lamp for c in missing])

@@ -17,7 +17,7 @@ def test_rate_json_keys_and_values(run, write, bb_table, tmp_path):
     for key in ("name", "source", "x", "y", "u", "v", "u_prime", "v_prime", "ler_lm_per_W", "flags", "cct_K", "duv"):
         assert key in records[0]
     r = records[0]
-    assert r["source"] == "bb.csv, column 2"
+    assert r["source"] == f"{path}, column 2"
     # A 2856 K Planck spectrum (CODATA c2): its x, y equal the colorimetry of the same spectrum.
     assert r["u"] == pytest.approx(cm.xy_to_uv([r["x"], r["y"]])[0], rel=1e-12)
     assert r["v_prime"] == pytest.approx(1.5 * r["v"], rel=1e-12)
