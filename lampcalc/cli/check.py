@@ -12,33 +12,58 @@ from .common import (
     fail_on_input_errors,
     rate_batches,
     read_report_options,
+    read_sets,
     read_some,
     report_options,
+    set_options,
     spectrum_options,
-    write_outputs,
 )
-from .printouts import TABLE_NOTES, rating_table, verdict_text
+from .outputs import prepare_outputs, write_outputs
+from .printouts import TABLE_NOTES, flag_legend, rating_table, verdict_text
 
 
-def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_out=None, steps="ellipse",
-                    centre="ansi", quiet_table=False, report_info=None, paper="a4", **reading):
-    """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2) and the ratings."""
-    from ..verdicts.claims import check_claims, read_claims
+def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi", quiet_table=False,
+                    report_options=None, **reading):
+    """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2) and the ratings.
 
+    ``sets``: (bin set, ellipse set) from :func:`~lampcalc.cli.common.read_sets`; the shipped
+    ones by default. Status 2 when a spectrum file could not be read or a claimed lamp has no
+    spectrum (the other lamps are still checked), 1 when a claim does not hold or cannot be
+    shown to.
+    """
+    from ..verdicts.claims import check_claims, duplicate_names, read_claims
+
+    bin_set, ellipse_set = sets or read_sets()
     claims = read_claims(claims_path)
     batches, errors = read_some(files, **reading)
-    nominal = {c.lamp: c.values["nominal_cct_K"] for c in claims.values() if "nominal_cct_K" in c.values}
-    ratings = rate_batches(batches, nominal)
-    verdicts = check_claims(claims, ratings, claims_path, sdcm_method=steps, sdcm_centre=centre)
+    nominal = {}
+    for claim in claims.values():
+        if "nominal_cct_K" in claim.values:
+            nominal[claim.lamp.casefold()] = claim.values["nominal_cct_K"]
+    ratings = rate_batches(batches, nominal, (bin_set, ellipse_set))
+    verdicts = check_claims(
+        claims, ratings, claims_path, ellipse_set=ellipse_set, sdcm_centre=centre, bin_set=bin_set
+    )
     if not quiet_table:
         click.echo(rating_table(ratings))
-        click.echo(TABLE_NOTES + "\n")
+        click.echo(TABLE_NOTES)
+        if legend := flag_legend(ratings):
+            click.echo("Flags:\n" + legend)
+        click.echo()
     click.echo(verdict_text(verdicts, ratings))
     click.echo("\n" + verdicts.summary())
-    write_outputs(ratings, verdicts, json_out, csv_out, report_out, report_info, paper)
+    write_outputs(ratings, verdicts, outputs or {}, report_options)
     click.echo(CAUTION)
+    duplicates = duplicate_names(ratings)
+    if duplicates:
+        click.echo(f"lampcalc: note: {duplicates}", err=True)
+    for lamp in verdicts.lamps:
+        for c in lamp["checks"]:
+            if c["criterion"] == "spectrum":
+                click.echo(f"lampcalc: {claims_path}, {c['note']}", err=True)
     if errors:
         click.echo(f"lampcalc: {len(errors)} of {len(files)} spectrum files could not be read", err=True)
+    if errors or verdicts.missing:
         return 2, ratings
     return (0 if verdicts.all_hold else 1), ratings
 
@@ -47,34 +72,40 @@ def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_o
 @click.argument("paths", nargs=-1, required=True, type=click.Path(exists=True), metavar="SPECTRA...")
 @click.option(
     "--claims", "claims_path", required=True, type=click.Path(exists=True, dir_okay=False),
-    help="CSV of the supplier's claims, one row per lamp (docs/claims.md).",
+    help="Table of the supplier's claims (CSV, semicolons or tabs), one row per lamp (docs/claims.md).",
 )
 @click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write the verdicts to this JSON file.")
 @click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write one row per check to this CSV file.")
+@click.option("--xlsx", "xlsx_out", type=click.Path(dir_okay=False),
+              help="Write the ratings, their flags and the verdicts to this Excel workbook.")
 @click.option("--report", "report_out", type=click.Path(dir_okay=False), help="Write a PDF report with the verdicts.")
 @click.option(
     "--steps", type=click.Choice(["ellipse", "circle"]), default="ellipse", show_default=True,
-    help="Colour-consistency steps: IEC 60081 ellipses or CIE TN 001 u'v' circles.",
+    help="Colour-consistency steps: IEC 60081 ellipses or CIE TN 001 u'v' circles (shipped sets; --ellipses replaces them).",
 )
 @click.option(
-    "--centre", type=click.Choice(["ansi", "iec"]), default="ansi", show_default=True,
-    help="Centre of the steps: ANSI C78.377 target of the nominal CCT, or the IEC 60081 colour centre.",
+    "--centre", type=click.Choice(["ansi", "set"]), default="ansi", show_default=True,
+    help="Centre of the steps: ANSI C78.377 target of the nominal CCT, or the ellipse set's own centre (IEC 60081's F2700...).",
 )
 @report_options
+@set_options
 @spectrum_options
 @fail_on_input_errors
-def check(paths, claims_path, json_out, csv_out, report_out, steps, centre, report_info, paper, recursive, **reading):
+def check(paths, claims_path, json_out, csv_out, xlsx_out, report_out, steps, centre, report_info, paper, recursive,
+          bins, ellipses, **reading):
     """Check a supplier's claims against the spectra: one verdict per claim.
 
-    Exit status 0 when every claim holds, 1 when any does not (or cannot be shown to),
-    2 for bad input.
+    Lamps are matched to claims by name, without regard to case; the claims file is never
+    read as a spectrum. Exit status 0 when every claim holds, 1 when any does not (or
+    cannot be shown to), 2 for bad input (also a claimed lamp with no spectrum).
     """
     info = read_report_options(report_out, report_info, paper)
-    files = collect_files(paths, recursive)
+    files = collect_files(paths, recursive, exclude=[claims_path])
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
+    outputs = prepare_outputs([*files, claims_path], json=json_out, csv=csv_out, xlsx=xlsx_out, report=report_out)
     status, _ = check_and_write(
-        files, claims_path, json_out=json_out, csv_out=csv_out, report_out=report_out, steps=steps, centre=centre,
-        report_info=info, paper=paper, **reading,
+        files, claims_path, outputs=outputs, sets=read_sets(bins, ellipses, steps), centre=centre,
+        report_options={"report_info": info, "paper": paper}, **reading,
     )
     sys.exit(status)

@@ -1,6 +1,6 @@
 """The tables the commands print: ratings and claim verdicts, with their notes."""
 
-from ..rating.flags import doubtful_keys
+from ..rating.flags import doubtful_keys, explain
 from .common import flagged, fmt
 
 
@@ -16,13 +16,13 @@ def rating_table(ratings):
                 r["name"],
                 fmt(r["cct_K"], ".0f"),
                 fmt(r["duv"], "+.4f"),
-                fmt(r["ansi_nominal_cct_K"], ".0f"),
-                fmt(r["sdcm_steps"], ".1f"),
+                flagged(r["ansi_nominal_cct_K"], ".0f", "ansi_nominal_cct_K" in doubt),
+                flagged(r["sdcm_steps"], ".1f", "sdcm_steps" in doubt),
                 flagged(r["ra"], ".1f", "ra" in doubt),
                 flagged(r9, ".1f", "ri" in doubt),
                 flagged(r["rf"], ".1f", "rf" in doubt),
                 flagged(r["rg"], ".1f", "rg" in doubt),
-                fmt(r["ler_lm_per_W"], ".1f"),
+                flagged(r["ler_lm_per_W"], ".1f", "ler_lm_per_W" in doubt),
                 fmt(r["efficacy_lm_per_W"], ".1f"),
                 fmt(r["sp_ratio"], ".2f"),
                 fmt(r["melanopic_der"], ".3f"),
@@ -34,12 +34,24 @@ def rating_table(ratings):
 
 
 TABLE_NOTES = (
-    "ANSI: the ANSI C78.377-2017 nominal CCT category the lamp is in; steps: IEC 60081 ellipse steps from the\n"
-    "centre of the claimed nominal CCT, else of the nearest category. LER: efficacy of the radiation over the\n"
-    "measured part of 360-830 nm; lamp lm/W: lamp efficacy (needs W/nm and the electrical power).\n"
-    "Ra, R9: CIE 13.3-1995, unrounded. Rf, Rg: CIE 224:2017 / ANSI/IES TM-30-18. "
-    "(values): computed outside the method's validity; '-': not computable."
+    "ANSI: the ANSI C78.377-2017 nominal CCT category the lamp is in; steps: colour-consistency steps (with the\n"
+    "ellipse set named in the output files) from the centre of the claimed nominal CCT, else of the nearest\n"
+    "category. LER: efficacy of the radiation over the measured part of 360-830 nm; lamp lm/W: lamp efficacy\n"
+    "(needs W/nm and the electrical power). Ra, R9: CIE 13.3-1995, unrounded. Rf, Rg: CIE 224:2017 /\n"
+    "ANSI/IES TM-30-18. (values): computed outside the method's validity or with values not confirmed from a\n"
+    "published source (see the flags); '-': not computable."
 )
+
+
+def flag_legend(ratings):
+    """The words of every flag the lamps carry, one per line (empty when none)."""
+    raised = sorted({flag for flags in ratings["flags"] for flag in flags})
+    return "\n".join(f"  {flag}: {explain(flag)}" for flag in raised)
+
+
+#: Words of the lot and comparison tables (lot_printouts, compare_printouts); the claims check's
+#: verdicts use lampcalc.verdicts.wording.
+RESULT = {True: "holds", False: "FAILS", None: "not shown"}
 
 
 def verdict_text(verdicts, ratings=None):
@@ -48,12 +60,14 @@ def verdict_text(verdicts, ratings=None):
     from .text_table import format_table
 
     flags = ratings["flags"] if ratings is not None else ()
-    names = ratings["name"] if ratings is not None else [lamp["lamp"] for lamp in verdicts.lamps]
+    names = ratings["name"] if ratings is not None else [v["lamp"] for v in verdicts.lamps if v["lamp"] not in verdicts.missing]
     blocks = []
-    for k, lamp in enumerate(pair_verdicts(names, verdicts)):
+    paired = [(lamp, flags[k] if ratings is not None else ()) for k, lamp in enumerate(pair_verdicts(names, verdicts))]
+    paired += [(lamp, ()) for lamp in verdicts.lamps if lamp["lamp"] in verdicts.missing]
+    for lamp, lamp_flags in paired:
         if lamp is None:
             continue
-        words = word_checks(lamp, flags[k] if ratings is not None else ())
+        words = word_checks(lamp, lamp_flags)
         rows = [[w.claim, w.measured, w.margin, w.verdict_text, w.why] for w in words]
         table = format_table(["claim", "measured", "margin", "verdict", "why"], rows, "lrrll")
         blocks.append(f"{lamp['lamp']}: {lamp_line(lamp)}\n" + "\n".join("  " + line for line in table.splitlines()))

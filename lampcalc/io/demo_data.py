@@ -27,3 +27,14 @@ def demo_claims():
 def demo_report_info():
     """The report information of the demo's report (a TOML file)."""
     return demo_folder() / "report_info_quillfen.toml"
+
+
+def demo_set(name):
+    """The spectrum files of one demo set in a subfolder of the demo: ``"lot"``, ``"angles"`` or ``"datasheet"``."""
+    folder = demo_folder() / name
+    return sorted(p for p in folder.iterdir() if p.suffix in SPECTRUM_SUFFIXES)
+
+
+def demo_lot_claims():
+    """The fictional supplier's claims on its demo lot (TOML)."""
+    return demo_folder() / "lot" / "lot_claims_quillfen.toml"

@@ -19,7 +19,7 @@ import numpy as np
 
 from ..colorimetry.daylight import daylight_locus_xy
 from ..colorimetry.locus import cct_duv_to_uv, isotemperature_lines
-from ..colorimetry.tristimulus import XYZ_to_xy, uv_to_xy, xy_to_upvp, xy_to_uv
+from ..colorimetry.tristimulus import XYZ_to_xy, upvp_to_xy, uv_to_xy, xy_to_upvp, xy_to_uv
 from ..spectra.resampling import GRID_NM
 from ..spectra.tables import colour_matching_functions
 from ..standards.ansi_bins import NOMINAL_CCTS_K, category
@@ -68,13 +68,30 @@ def near_white(xy, space="xy", grow=0.5):
         return (p[:, 0] >= x0 - dx) & (p[:, 0] <= x1 + dx) & (p[:, 1] >= y0 - dy) & (p[:, 1] <= y1 + dy)
 
 
-def window_around(xy, nominal_cct_K, space="xy", steps=7):
-    """A window holding a lamp at ``xy``, the ANSI quadrangle of ``nominal_cct_K`` whole and its ``steps``-step ellipse."""
+def step_ring_xy(nominal_cct_K, n_steps, ellipse_set=None, n_points=181):
+    """The ``n_steps`` contour around the ANSI centre of ``nominal_cct_K`` in CIE 1931 (x, y), shape (n_points, 2).
+
+    The metric is the ellipse set's (default IEC 60081, :mod:`lampcalc.standards.steps`), in the
+    set's own coordinates, and the contour is brought back to (x, y).
+    """
+    from ..standards.ellipse_sets import FROM_XY
+
+    space = getattr(ellipse_set, "space", "xy")
+    g, _ = metric(nominal_cct_K, ellipse_set)
+    centre = FROM_XY[space](category(nominal_cct_K).centre_xy)
+    ring = ellipse_xy(centre, g, n_steps, n_points)
+    return {"xy": lambda p: p, "uv": uv_to_xy, "upvp": upvp_to_xy}[space](ring)
+
+
+def window_around(xy, nominal_cct_K, space="xy", steps=7, ellipse_set=None):
+    """A window holding a lamp at ``xy``, the ANSI quadrangle of ``nominal_cct_K`` whole (a flexible CCT has none)
+    and its ``steps``-step contour."""
     to_space = SPACES[space][0]
-    centre = category(nominal_cct_K).centre_xy
-    g, _ = metric(nominal_cct_K)
-    points = np.vstack([category(nominal_cct_K).corners_xy, ellipse_xy(centre, g, steps, 61), np.reshape(xy, (1, 2))])
-    return _padded(to_space(points), pad=0.12)
+    cat = category(nominal_cct_K)
+    parts = [step_ring_xy(nominal_cct_K, steps, ellipse_set, 61), np.reshape(xy, (1, 2))]
+    if cat.corners_xy is not None:
+        parts.append(cat.corners_xy)
+    return _padded(to_space(np.vstack(parts)), pad=0.12)
 
 
 def _padded(points, pad=PAD):
@@ -154,7 +171,7 @@ class ChromaticityDiagram:
             ax.legend(loc="upper left" if zoom else "lower right", handlelength=2.0)
 
     def show(self, lamps=(), *, labels=None, nominal_cct_K=None, steps=(1, 2, 3, 4, 5, 6, 7), window=None,
-             title=None, label_colour=LAMP):
+             title=None, label_colour=LAMP, ellipse_set=None):
         """Mark and label ``lamps``, draw ellipses, set the window; replaces what the last call drew.
 
         Parameters
@@ -164,6 +181,8 @@ class ChromaticityDiagram:
             The text beside each lamp (default: its name), always plain text.
         nominal_cct_K : float, optional
             Draw colour-consistency ellipses of ``steps`` steps around this nominal CCT's centre.
+        ellipse_set : EllipseSet, optional
+            The metric of those ellipses (default: the shipped IEC 60081 set).
         window : ((x0, x1), (y0, y1)), optional
             The region that must be seen (it is widened to the axes' shape); by default the
             white region (zoom) or the whole diagram, widened to hold every lamp.
@@ -176,9 +195,8 @@ class ChromaticityDiagram:
         labels = [name for name, _ in lamps] if labels is None else list(labels)
         if nominal_cct_K is not None and np.isfinite(nominal_cct_K):
             centre = category(nominal_cct_K).centre_xy
-            g, _ = metric(nominal_cct_K)
             for n in steps:
-                ring = to_space(ellipse_xy(centre, g, n))
+                ring = to_space(step_ring_xy(nominal_cct_K, n, ellipse_set))
                 self._transient += ax.plot(*ring.T, color=ACCENT, lw=0.5 if n != 6 else 0.9, alpha=0.85, gid=f"ellipse:{n}")
             self._transient += ax.plot(*to_space(centre), marker="+", color=ACCENT, ms=5, gid="ellipse_centre")
         points = np.array([to_space(np.asarray(xy, dtype=float)) for _, xy in lamps]).reshape(-1, 2)

@@ -22,10 +22,10 @@ from ..plots.diagram import ChromaticityDiagram, window_around
 from ..plots.hue import BAR_SCALES, HueBars, HueGraphic
 from ..plots.spectrum import SpectrumPanel, reference_at_equal_luminance
 from ..plots.style import INK, LAMP, MUTED, pin_axis_labels
-from ..rating.flags import explain
+from ..rating.flags import doubtful_keys, explain
 from ..rendering.reference import reference_cie224
 from ..spectra.batch import QUANTITY_UNITS
-from ..verdicts.wording import MISSING, QUALIFIED, format_value, lamp_line, lamp_status, word_checks
+from ..verdicts.wording import INTERPOLATION_WORDS, MISSING, QUALIFIED, format_value, lamp_line, lamp_status, word_checks
 from .markers import quote
 from .tables import HEADING_MM, Cell, Column, Table, heading, key_values, key_values_height, line_mm, paragraph
 
@@ -46,30 +46,52 @@ def _white(record):
     return record.get("cct_K") is not None and "rendering_not_meaningful" not in (record.get("flags") or ())
 
 
+def _category_words(r):
+    margin = r.get("ansi_margin_uv")
+    if r.get("ansi_nominal_cct_K") is not None:
+        return f"{quote(r, 'ansi_nominal_cct_K')} K, inside by {format_value('ansi_margin_uv', margin)}"
+    if r.get("ansi_nearest_nominal_cct_K") is not None and margin is not None:
+        return f"none; nearest {r['ansi_nearest_nominal_cct_K']:g} K, {format_value('ansi_margin_uv', abs(margin))} out"
+    return MISSING
+
+
 def _colour_items(r):
+    """(label, value) of the colour point: chromaticity, CCT and category for a white lamp, else its hue."""
     items = [("x, y", f"{quote(r, 'x')}, {quote(r, 'y')}"), ("u′, v′", f"{quote(r, 'u_prime')}, {quote(r, 'v_prime')}")]
     if r.get("cct_K") is not None:
         items += [("CCT", quote(r, "cct_K", unit=True)), ("Duv", quote(r, "duv"))]
-    if r.get("ansi_nominal_cct_K") is not None:
-        category = f"{r['ansi_nominal_cct_K']:g} K (inside by {quote(r, 'ansi_margin_uv')})"
-    elif r.get("ansi_nearest_nominal_cct_K") is not None and r.get("cct_K") is not None:
-        category = f"none (nearest {r['ansi_nearest_nominal_cct_K']:g} K, {format_value('ansi_margin_uv', abs(r['ansi_margin_uv']))} out)"
-    else:
-        category = MISSING
     if _white(r):
+        centre = format_value("sdcm_centre_nominal_cct_K", r.get("sdcm_centre_nominal_cct_K"), unit=True)
         items += [
-            ("ANSI C78.377", category),
-            ("to its target", f"ΔCCT {format_value('ansi_delta_cct_K', r.get('ansi_delta_cct_K'), unit=True, signed=True)}, "
-                              f"ΔDuv {quote(r, 'ansi_delta_duv')}"),
-            ("steps", f"{quote(r, 'sdcm_steps')} from the {format_value('sdcm_centre_nominal_cct_K', r.get('sdcm_centre_nominal_cct_K'), unit=True)} centre"
-             if r.get("sdcm_steps") is not None else MISSING),
+            ("ANSI C78.377", _category_words(r)),
+            ("to its target", f"ΔCCT {format_value('ansi_delta_cct_K', r.get('ansi_delta_cct_K'), unit=True, signed=True)}"
+                              f", ΔDuv {quote(r, 'ansi_delta_duv')}"),
+        ]
+        if r.get("bin_set") and r.get("bin_set") != r.get("ansi_edition"):
+            bin_name = r.get("bin") or "none"
+            items.append(("bin", f"({bin_name})" if "bin" in doubtful_keys(r.get("flags") or ()) else bin_name))
+        items += [
+            ("steps", f"{quote(r, 'sdcm_steps')} from the {centre} centre" if r.get("sdcm_steps") is not None else MISSING),
+            ("step set", r.get("sdcm_ellipse_set") or MISSING),
             ("peak", quote(r, "peak_nm", unit=True)),
         ]
     else:
+        hue = (("complementary λ", "complementary_wavelength_nm") if r.get("complementary_wavelength_nm") is not None
+               else ("dominant λ", "dominant_wavelength_nm"))
         items += [(label, quote(r, key, unit=True)) for label, key in (
-            ("dominant λ", "dominant_wavelength_nm"), ("purity", "excitation_purity"), ("peak", "peak_nm"),
-            ("centroid", "centroid_nm"), ("FWHM", "fwhm_nm"))]
+            hue, ("purity", "excitation_purity"), ("peak", "peak_nm"), ("centroid", "centroid_nm"), ("FWHM", "fwhm_nm"))]
     return items
+
+
+def _ellipse_set(record):
+    """The shipped ellipse set the lamp's steps were counted with; None for a set supplied by the user."""
+    from ..standards.ellipse_sets import SHIPPED, shipped_ellipse_set
+
+    name = record.get("sdcm_ellipse_set")
+    sets = [shipped_ellipse_set(kind) for kind in SHIPPED]
+    if not name:
+        return sets[0]
+    return next((s for s in sets if s.name == name), None)
 
 
 def _light_items(r):
@@ -91,7 +113,8 @@ def _subtitle(r):
 
     unit = QUANTITY_UNITS.get(r.get("quantity"), "")
     data = (f"{r.get('quantity')} spectrum ({unit}), measured {nm('range_start_nm')}–{nm('range_end_nm')} nm "
-            f"in steps of {nm('step_nm')} nm; interpolated to 1 nm: {r.get('interpolation') or MISSING}")
+            f"in steps of {nm('step_nm')} nm; onto the 1 nm grid: "
+            f"{INTERPOLATION_WORDS.get(r.get('interpolation'), r.get('interpolation') or MISSING)}")
     return f"{r.get('source') or ''}\n{data}"
 
 
@@ -217,9 +240,14 @@ class LampPages:
         name = record["name"]
         xy = (record["x"], record["y"])
         nominal = record.get("sdcm_centre_nominal_cct_K")
-        if _white(record) and nominal is not None:
-            diagram.show([(name, xy)], labels=[None], nominal_cct_K=nominal, window=window_around(xy, nominal), title="")
-            note = f"ANSI C78.377-2017 quadrangles; 1–7 step ellipses around the {nominal:g} K centre (6 heavier)."
+        ellipses = _ellipse_set(record)
+        if _white(record) and nominal is not None and ellipses is not None:
+            diagram.show([(name, xy)], labels=[None], nominal_cct_K=nominal, ellipse_set=ellipses, title="",
+                         window=window_around(xy, nominal, ellipse_set=ellipses))
+            note = f"ANSI C78.377-2017 quadrangles; 1–7 step contours ({ellipses.name}) around the {nominal:g} K centre."
+        elif _white(record) and nominal is not None:
+            diagram.show([(name, xy)], labels=[None], title="", window=window_around(xy, nominal))
+            note = f"ANSI C78.377-2017 quadrangles; the steps' set ({record.get('sdcm_ellipse_set')}) is not drawn."
         else:
             diagram.show([(name, xy)], labels=[None], title="")
             note = "CIE 1931 (x, y): the lamp lies away from the white region."

@@ -10,16 +10,19 @@ from .. import __version__
 from ..plots.hue import BAR_SCALES
 from ..plots.style import INK, LAMP, MUTED
 from ..standards.ansi_bins import EDITION
-from ..verdicts.wording import MISSING, QUALIFIED, UNCONFIRMED_BASES
+from ..verdicts.wording import INTERPOLATION_WORDS, MISSING, QUALIFIED
 from .caution import CAUTION
 from .tables import line_mm, paragraph, paragraph_height
 
 HEAD_MM = 38.0  # width of the headings' column
+TEXT_PT = 6.8
+GAP_MM = 2.0
 
 METHODS = [
-    ("Spectra and sums", "CIE 015:2018: every spectrum is brought once onto 360–830 nm at 1 nm and every weighted "
-     "integral is Σ S(λ)·w(λ)·Δλ. Outside the measured range the spectrum is zero, never extrapolated; a spectrum "
-     "that does not cover 380–780 nm is flagged."),
+    ("Spectra and sums", "CIE 015:2018: every spectrum is brought once onto 360–830 nm at 1 nm, as CIE 015 and "
+     "CIE 167:2005 prescribe (Sprague for uniform data coarser than 1 nm, linear for uneven data, finer data "
+     "integrated so that every watt counts once), and every weighted integral is Σ S(λ)·w(λ)·Δλ. Outside the "
+     "measured range the spectrum is zero, never extrapolated; a spectrum that does not cover 380–780 nm is flagged."),
     ("Observer", "CIE 1931 2° standard observer (CIE 015:2018) for chromaticity, CCT, Duv, CIE 13.3 and the ANSI "
      "categories; CIE 1964 10° for CIE 224 / TM-30-18, as that method prescribes."),
     ("CCT and Duv", "The exact nearest point of the Planckian locus (c2 = 1.4388e-2 m·K) in the CIE 1960 (u, v) "
@@ -39,26 +42,25 @@ METHODS = [
     ("Photoreceptors", "S/P = 1700 lm/W · Σ V′(λ)·S(λ) / (683 lm/W · Σ V(λ)·S(λ)) over 380–780 nm, with the CIE 1951 "
      "scotopic V′(λ). α-opic efficacies of luminous radiation (ELR) and daylight efficacy ratios (DER, against D65) "
      "per CIE S 026/E:2018; melanopic EDI = illuminance × mel-DER, for irradiance spectra."),
-    ("Categories and steps", f"{EDITION}, Table 1: a lamp is in a category when its chromaticity lies inside (or on) "
-     "the quadrangle; other nominal CCTs from 2200 to 6500 K follow the standard's flexible-CCT rules. Colour-"
-     "consistency steps are counted with the ellipses of IEC 60081:1997, Annex D (between its colour centres the "
-     "metric is interpolated in reciprocal CCT), from the centre of the claimed nominal CCT, else of the nearest "
-     "category."),
-    ("Claims", "Each claim is checked as the supplier stated it and given one of three verdicts: meets, does not meet, "
-     "or not evaluated (the value could not be computed from the data, so the claim is not shown to hold). A claimed "
-     "nominal CCT is checked three ways: inside its quadrangle, CCT within the category's tolerance, Duv within ±0.006 "
-     f"of its target. The margin is how far the value lies on the claim's side of its limit. {QUALIFIED} marks a "
-     "qualified verdict (see the two entries below)."),
+    ("Categories and steps", f"{EDITION}: Table 1 targets and the quadrangles of the standard's corner table; a lamp is "
+     "in a category when its chromaticity lies inside (or on) the quadrangle. For a flexible nominal CCT only the "
+     "centre-line Duv is checked: no quadrangle or CCT tolerance is held from a published source, so those claims "
+     "are not evaluated (a bin set supplied with the claims decides them). Colour-consistency steps are counted "
+     "with an ellipse set (by default IEC 60081:1997, Annex D; between its colour centres the metric is "
+     "interpolated in reciprocal CCT) from the centre of the claimed nominal CCT, else of the nearest category."),
+    ("Claims", "Each claim is checked as the supplier stated it: meets, does not meet, or not evaluated (the data do "
+     "not give the value, so the claim is not shown to hold). A claimed nominal CCT is checked three ways: inside its "
+     f"quadrangle, CCT within the category's tolerance, Duv within ±0.006 of its target. {QUALIFIED} marks a qualified "
+     "verdict (see below)."),
     ("Reading the lamp pages", "Claims come first: the claim as stated, the measured value, the margin (how far the "
      "value lies on the claim's side of its limit, negative when short of it; for a quadrangle, the distance from its "
      "nearest edge in CIE 1960 (u, v)), the verdict and why. The diagram holds the lamp's category quadrangle whole, "
-     "with colour-consistency ellipses of 1 to 7 steps around the category's centre (the 6-step ellipse heavier). "
-     "In the hue-bin graphic the reference is the dashed unit circle and the lamp the solid polygon; a line joins "
-     f"each bin's reference point to the lamp's. The bars use fixed scales — Rf,h {BAR_SCALES['fidelity'][0]:g} to "
-     f"{BAR_SCALES['fidelity'][1]:g}, Rcs,h ±{BAR_SCALES['chroma'][1]:g} %, Rhs,h ±{BAR_SCALES['hue'][1]:g} rad — "
-     "filled above zero and open below; a triangle marks a value beyond its scale. In the spectrum the lamp is the "
-     "solid line (drawn only where measured) and the CIE 224 reference at its CCT and equal luminance the dashed one; "
-     "V(λ) is dotted and the melanopic action spectrum dash-dotted."),
+     "with 1–7 step ellipses around its centre (the 6-step one heavier). Hue-bin graphic: reference the dashed unit "
+     f"circle, lamp the solid polygon. Bars on fixed scales (Rf,h {BAR_SCALES['fidelity'][0]:g}–"
+     f"{BAR_SCALES['fidelity'][1]:g}, Rcs,h ±{BAR_SCALES['chroma'][1]:g} %, Rhs,h ±{BAR_SCALES['hue'][1]:g} rad), "
+     "filled above zero and open below; a triangle marks a value beyond its scale. Spectrum: the lamp solid (drawn "
+     "only where measured), the CIE 224 reference at its CCT and equal luminance dashed, V(λ) dotted, the melanopic "
+     "action spectrum dash-dotted."),
     ("Numbers as printed", "Each quantity is printed with fixed decimals (CCT to 1 K, Duv and chromaticity to 0.0001, "
      "indices to 0.1); near a claim's limit more decimals show on which side the value lies. Absolute quantities keep "
      f"four significant figures. A value in parentheses is outside its method's validity (its lamp's flags say why); "
@@ -66,23 +68,42 @@ METHODS = [
 ]
 
 
-def _unconfirmed_text():
-    listed = "; ".join(UNCONFIRMED_BASES.values())
-    return (f"These shipped values were reproduced without a published copy in hand and are not yet confirmed "
-            f"against the standards' text: {listed}. A verdict that rests on one of them is marked {QUALIFIED}; "
-            "confirm the value against your copy of the standard before relying on such a verdict in a dispute.")
+def _unconfirmed_text(records):
+    """The shipped values no published source in hand confirms, from the sets' own marks; and the user's sets."""
+    from ..standards.ansi_bins import ansi_bin_set
+    from ..standards.ellipse_sets import SHIPPED, shipped_ellipse_set
+
+    bins = ansi_bin_set()
+    built = [name for name, confirmed in zip(bins.names, bins.bin_confirmed) if not confirmed]
+    items = [f"the quadrangles of {', '.join(built)} K in {bins.name} (corners built by the standard's construction, "
+             "not read from its published table)"] if built else []
+    shipped = {}
+    for kind in SHIPPED:
+        ellipses = shipped_ellipse_set(kind)
+        shipped[ellipses.name] = ellipses
+        if not ellipses.confirmed:
+            items.append(f"the {ellipses.name} ({ellipses.edition})")
+    text = ("These shipped values are held by lampcalc but not yet checked against the published text: "
+            + "; ".join(items) + f". A verdict that rests on one of them is marked {QUALIFIED}, and so is a value "
+            "that uses them (in parentheses, with its flag); confirm them against your copy of the standard, or "
+            "supply the published values as set files, before relying on such a verdict in a dispute.") if items else ""
+    given = sorted({str(r.get(key)) for r in records for key in ("bin_set", "sdcm_ellipse_set")
+                    if r.get(key) and r.get(key) not in shipped and r.get(key) != bins.name})
+    if given:
+        text += f" Sets supplied for this report, used as given: {', '.join(given)}."
+    return text or "None: every value used is read from its published source."
 
 
 def _interpolation_text(records):
     groups = {}
     for r in records:
-        groups.setdefault(r.get("interpolation") or "", []).append(r["name"])
-    if list(groups) == [""]:
-        return "Not recorded with these ratings."
-    parts = [f"{method or 'not recorded'}: " + ("all lamps" if len(groups) == 1 else ", ".join(names))
-             for method, names in groups.items()]
-    return "To the 1 nm grid — " + "; ".join(parts) + ". Linear interpolation adds no overshoot; Sprague " \
-        "(CIE 167:2005) suits smooth data at a uniform step."
+        method = r.get("interpolation")
+        groups.setdefault(INTERPOLATION_WORDS.get(method, method or "not recorded"), []).append(r["name"])
+    if len(groups) == 1:
+        return f"To the 1 nm grid: {next(iter(groups))}, for every lamp."
+    parts = [f"{method}: {len(names)} lamp{'s' if len(names) != 1 else ''} ({', '.join(names[:6])}"
+             f"{', …' if len(names) > 6 else ''})" for method, names in sorted(groups.items())]
+    return "To the 1 nm grid — " + "; ".join(parts) + "."
 
 
 def _cautions():
@@ -95,7 +116,7 @@ def _blocks(report):
     return [
         *[(h, t, INK) for h, t in METHODS],
         ("Interpolation used", _interpolation_text(report.records), INK),
-        ("Values not confirmed by a published source", _unconfirmed_text(), INK),
+        ("Values not confirmed by a published source", _unconfirmed_text(report.records), INK),
         ("Cautions", _cautions(), LAMP),
         ("Software", f"lampcalc {__version__}, computed from the spectra supplied; the report is reproducible from "
          "the same files (no date is added).", INK),
@@ -123,8 +144,8 @@ class MethodsPage:
             room = report.paper.height_mm - 2 * MARGIN_MM - HEADER_MM - FOOTER_MM
             pages, used = [[]], 0.0
             for block in _blocks(report):
-                height = max(paragraph_height(block[1], width, size=7), paragraph_height(block[0], HEAD_MM - 3, size=7.5,
-                                                                                           weight="bold")) + 2.6
+                height = max(paragraph_height(block[1], width, size=TEXT_PT),
+                             paragraph_height(block[0], HEAD_MM - 3, size=7.5, weight="bold")) + GAP_MM
                 if used + height > room and pages[-1]:
                     pages.append([])
                     used = 0.0
@@ -146,8 +167,8 @@ class MethodsPage:
                 y = sheet.top
                 for head, text, colour in blocks:
                     paragraph(page, sheet.left, y, head, HEAD_MM - 3, size=7.5, weight="bold", color=colour)
-                    height = paragraph(page, sheet.left + HEAD_MM, y, text, width, size=7)
-                    y += max(height, paragraph_height(head, HEAD_MM - 3, size=7.5, weight="bold")) + 2.6
+                    height = paragraph(page, sheet.left + HEAD_MM, y, text, width, size=TEXT_PT)
+                    y += max(height, paragraph_height(head, HEAD_MM - 3, size=7.5, weight="bold")) + GAP_MM
                 if k == len(pages) - 1:
                     self._sign(page, sheet, report, y + 3)
 

@@ -11,8 +11,8 @@ Numbers are written with a fixed number of decimals per quantity (:data:`DIGITS`
 ``1e-7`` notation; absolute quantities, whose size depends on the measurement, keep four
 significant figures. Near a claim's limit a value gets more decimals, up to three more,
 until its side of the limit shows. A value that a flag makes doubtful is written in
-parentheses, and a verdict that rests on such a value, or on a shipped value that no
-published source confirms (:data:`UNCONFIRMED_BASES`), carries the mark :data:`QUALIFIED`.
+parentheses, and a verdict that rests on such a value, or on a value its check says is not
+confirmed from a published source, carries the mark :data:`QUALIFIED`.
 """
 
 import math
@@ -44,13 +44,10 @@ DIGITS = {
     **{f"{c}_der": (3, "") for c in ("s_cone", "m_cone", "l_cone", "rhodopic", "melanopic")},
 }
 MISSING = "–"
-
-#: Shipped values that decide verdicts but that no published source in hand confirms; the
-#: methods page lists them and a verdict resting on one is qualified.
-UNCONFIRMED_BASES = {
-    "ellipse": "the IEC 60081:1997 Annex D ellipse coefficients used to count colour-consistency steps",
-    "circle": "the CIE TN 001:2014 step radius (0.0011 in u′, v′) used to count colour-consistency steps",
-    "flexible": f"the CCT tolerance of flexible nominal CCTs (not in {EDITION}, Table 1)",
+#: How a spectrum came onto the 1 nm grid (the ``interpolation`` key), in words.
+INTERPOLATION_WORDS = {
+    "none": "none needed (1 nm data)", "linear": "linear", "sprague": "Sprague (CIE 167:2005)",
+    "integrated": "integrated (data finer than 1 nm)",
 }
 
 # criterion -> (claim words, operator, output key of the measured value, basis of the comparison)
@@ -125,7 +122,6 @@ class ClaimWording:
     why: str
     passed: object  # True, False or None, as the check's ``pass``
     qualified: bool = False
-    unconfirmed: object = None  # key of UNCONFIRMED_BASES the verdict rests on, if any
 
     @property
     def verdict_text(self):
@@ -162,38 +158,49 @@ def _nominal_words(criterion, nominal):
     if criterion == "ansi_quadrangle":
         return f"{name}: in its quadrangle", f"the quadrangle of {EDITION}, {table}"
     if criterion == "ansi_cct_K":
+        if cat.flexible:
+            return f"{name}: CCT in its category", f"{EDITION}, flexible CCT"
         low, high = cat.target_cct_K - cat.cct_tolerance_K, cat.target_cct_K + cat.cct_tolerance_K
         return f"{name}: CCT {low:.0f}–{high:.0f} K", f"target {cat.target_cct_K:.0f} ± {cat.cct_tolerance_K:.0f} K ({table})"
     low, high = cat.target_duv - DUV_TOLERANCE, cat.target_duv + DUV_TOLERANCE
-    return f"{name}: Duv {low:+.4f} to {high:+.4f}", f"target {cat.target_duv:+.4f} ± {DUV_TOLERANCE} ({table})"
+    source = "centre-line formula" if cat.flexible else table
+    return f"{name}: Duv {low:+.4f} to {high:+.4f}", f"target {cat.target_duv:+.4f} ± {DUV_TOLERANCE} ({source})"
 
 
 def _steps_basis(note):
-    """Words for the steps check's note, and which unconfirmed basis the count rests on."""
-    method = "circle" if note.startswith("circle") else "ellipse"
-    words = "CIE TN 001 circles" if method == "circle" else "IEC 60081 ellipses"
-    centre = note.split(" centre of ", 1)[1].split(";")[0] if " centre of " in note else ""
-    kind = "IEC 60081" if "IEC centre" in note else "ANSI C78.377"
-    return f"{words} around {centre} ({kind} centre)" if centre else words, method
+    """Words for the steps check's note: the set and the centre the steps count from."""
+    head = note.split(";")[0]
+    name, _, rest = head.partition(" from the ")
+    where, _, nominal = rest.partition(" of ")
+    if not nominal:
+        return head
+    centre = "" if where.startswith("ANSI") else " (the set's own centre)"
+    nearest = "; nearest centre's metric" if "nearest centre" in note else ""
+    return f"{name} around {nominal}{centre}{nearest}"
 
 
-_ANSI_KEYS = {"ansi_quadrangle": "cct_K", "ansi_cct_K": "cct_K", "ansi_duv": "duv"}
+_NOMINAL_CRITERIA = {"ansi_quadrangle": "cct_K", "bin": "cct_K", "ansi_cct_K": "cct_K", "ansi_duv": "duv"}
 
 
-def _ansi_columns(check, nominal, passed):
-    """(claim, basis, key, margin text, shown decimals, unconfirmed basis) of an ANSI check."""
-    criterion, margin = check["criterion"], check["margin"]
-    key = _ANSI_KEYS[criterion]
+def _nominal_columns(check, nominal, passed):
+    """(claim, basis, key, margin text) of a check of a claimed nominal CCT."""
+    criterion, margin, note = check["criterion"], check["margin"], check["note"]
+    key = _NOMINAL_CRITERIA[criterion]
     if not _finite(nominal):
-        return criterion, check["note"], key, _margin_text(margin, 4, "", passed), None, None
-    claim, basis = _nominal_words(criterion, nominal)
-    if criterion == "ansi_quadrangle":  # the check's margin is in 1e-3 of (u, v)
+        return criterion, note, key, _margin_text(margin, 4, "", passed)
+    if criterion == "bin":
+        claim, basis = f"nominal {nominal:g} K: in its bin", note.split(";")[0].replace(": bin", ", bin")
+    else:
+        claim, basis = _nominal_words(criterion, nominal)
+    if passed is None:
+        basis = note.split(";")[0] if note else basis
+    if criterion in ("ansi_quadrangle", "bin"):  # the check's margin is in 1e-3 of (u, v)
         margin_text = _margin_text(None if margin is None else margin / 1e3, 4, "Δuv", passed)
         if passed is not None:
             basis = ("inside " if passed else "outside ") + basis
     else:
         margin_text = _margin_text(margin, DIGITS[key][0], DIGITS[key][1], passed)
-    return claim, basis, key, margin_text, None, "flexible" if category(nominal).flexible else None
+    return claim, basis, key, margin_text
 
 
 def word_check(check, *, nominal=None, flags=()):
@@ -209,31 +216,36 @@ def word_check(check, *, nominal=None, flags=()):
     flags : sequence of str
         The lamp's flags: a value they make doubtful is shown in parentheses and qualifies
         the verdict.
+
+    A verdict is qualified (:data:`QUALIFIED`) when it rests on a value in doubt or on a value
+    the check's note says is not confirmed from a published source.
     """
     criterion, claimed, measured, margin, passed = (check[k] for k in ("criterion", "claimed", "measured", "margin", "pass"))
-    if criterion in _ANSI_KEYS:
-        if criterion == "ansi_quadrangle":
+    note = check.get("note") or ""
+    shown = None
+    if criterion in _NOMINAL_CRITERIA:
+        if criterion in ("ansi_quadrangle", "bin"):
             nominal = claimed
-        claim, basis, key, margin_text, shown, unconfirmed = _ansi_columns(check, nominal, passed)
+        claim, basis, key, margin_text = _nominal_columns(check, nominal, passed)
+    elif criterion == "spectrum":
+        claim, basis, key, margin_text = "its spectrum", note, "spectrum", MISSING
     else:
         words, operator, key, basis = _CRITERIA.get(criterion, (criterion, "≥", criterion, ""))
         decimals, unit = DIGITS.get(key, (None, ""))
-        unconfirmed = None
         if criterion == "sdcm_steps" and measured is not None:
-            basis, unconfirmed = _steps_basis(check["note"])
-        elif criterion == "efficacy_lm_per_W" and measured is not None and " lm / " in check["note"]:
-            flux_lm, _, watts = check["note"].partition(" lm / ")
+            basis = _steps_basis(note)
+        elif criterion == "efficacy_lm_per_W" and measured is not None and " lm / " in note:
+            flux_lm, _, watts = note.partition(" lm / ")
             basis = f"{format_value('luminous_flux_lm', float(flux_lm), unit=True)} / {watts} electrical"
-        elif measured is None and check["note"]:
-            basis = check["note"].replace("needs nominal_cct_K", "needs a claimed nominal CCT")
+        elif measured is None and note:
+            basis = note.replace("needs nominal_cct_K", "needs a claimed nominal CCT")
         shown = _show_side(measured, claimed, operator, passed, decimals)
         claim = f"{words} {operator} {format_value(key, claimed, decimals=_claim_decimals(claimed))} {unit}".rstrip()
         margin_text = _margin_text(margin, shown, unit, passed)
-    doubt = doubtful_keys(flags)
-    doubtful = key in doubt and _finite(measured)
+    doubtful = key in doubtful_keys(flags) and _finite(measured)
     if doubtful:
-        basis = "value outside its method's validity (see the flags)"
-    if passed is None and not basis.startswith(("cannot", "not ", "needs")):
+        basis = "in doubt, see the flags" + (f"; {basis}" if basis else "")
+    if passed is None and not basis.startswith(("cannot", "not ", "needs", "line ")):
         basis = f"not computable for this lamp{': ' + basis if basis else ''}"
     elif basis == "not computable":
         basis = "not computable for this lamp"
@@ -244,8 +256,7 @@ def word_check(check, *, nominal=None, flags=()):
         verdict=VERDICT_WORDS[passed],
         why=basis,
         passed=passed,
-        qualified=passed is not None and (doubtful or unconfirmed is not None),
-        unconfirmed=unconfirmed,
+        qualified=passed is not None and (doubtful or "not confirmed" in note),
     )
 
 
@@ -275,6 +286,8 @@ def lamp_status(lamp_verdict):
 
 def lamp_line(lamp_verdict):
     """One lamp's verdict in a few words: "meets all 9 claims", "does not meet 1 of 9 claims" …"""
+    if [c["criterion"] for c in lamp_verdict["checks"]] == ["spectrum"]:
+        return "no spectrum among the files given; its claims are not checked"
     results = [c["pass"] for c in lamp_verdict["checks"]]
     n, failed, open_ = len(results), results.count(False), results.count(None)
     if not failed and not open_:
@@ -313,6 +326,8 @@ def count_line(verdicts):
         f"{statuses.count(None)} with claims not evaluated; {_count(len(checks), 'claim', 'claims')}: "
         f"{checks.count(True)} met, {checks.count(False)} not met, {checks.count(None)} not evaluated"
     )
+    if getattr(verdicts, "missing", None):
+        text += f"; claimed but no spectrum: {', '.join(verdicts.missing)}"
     unclaimed = verdicts.unclaimed
     if len(unclaimed) > 5:
         text += f"; {len(unclaimed)} lamps without claims"
