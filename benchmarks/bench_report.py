@@ -100,9 +100,11 @@ def main():
     for name, runs in results.items():
         r = min(runs, key=lambda item: item["wall"])
         best[name] = r
+        walls = ", ".join(f"{x['wall']:.1f} s" for x in runs)
+        cpu = min(x["cpu"] for x in runs) / r["pages"]
         print(f"{name}: {args.lamps} lamps, {r['pages']} pages, {r['size'] / 1e6:.1f} MB: "
-              f"{r['wall'] / r['pages']:.3f} s a page wall-clock, {min(x['cpu'] for x in runs) / r['pages']:.3f} s CPU "
-              f"(runs: {', '.join(f'{x['wall']:.1f} s' for x in runs)}; lampcalc from {Path(r['from']).parent})")
+              f"{r['wall'] / r['pages']:.3f} s a page wall-clock, {cpu:.3f} s CPU "
+              f"(runs: {walls}; lampcalc from {Path(r['from']).parent})")
     if args.baseline is not None:
         ratio = (best["baseline"]["wall"] / best["baseline"]["pages"]) / (best["this tree"]["wall"] / best["this tree"]["pages"])
         print(f"this tree writes a page {ratio:.2f}× as fast as the baseline (wall-clock, same machine and load)")

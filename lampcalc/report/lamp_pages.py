@@ -25,6 +25,7 @@ from ..plots.style import INK, LAMP, MUTED, pin_axis_labels
 from ..rating.flags import doubtful_keys, explain
 from ..rendering.reference import reference_cie224
 from ..spectra.batch import QUANTITY_UNITS
+from ..standards.ansi_bins import ansi_bin_set
 from ..verdicts.wording import INTERPOLATION_WORDS, MISSING, QUALIFIED, format_value, lamp_line, lamp_status, word_checks
 from .markers import quote
 from .tables import HEADING_MM, Cell, Column, Table, heading, key_values, key_values_height, line_mm, paragraph
@@ -67,7 +68,7 @@ def _colour_items(r):
             ("to its target", f"ΔCCT {format_value('ansi_delta_cct_K', r.get('ansi_delta_cct_K'), unit=True, signed=True)}"
                               f", ΔDuv {quote(r, 'ansi_delta_duv')}"),
         ]
-        if r.get("bin_set") and r.get("bin_set") != r.get("ansi_edition"):
+        if r.get("bin_set") and r.get("bin_set") != ansi_bin_set().name:  # a user's bin set
             bin_name = r.get("bin") or "none"
             items.append(("bin", f"({bin_name})" if "bin" in doubtful_keys(r.get("flags") or ()) else bin_name))
         items += [
@@ -112,9 +113,9 @@ def _subtitle(r):
         return MISSING if value is None else f"{value:g}"
 
     unit = QUANTITY_UNITS.get(r.get("quantity"), "")
-    data = (f"{r.get('quantity')} spectrum ({unit}), measured {nm('range_start_nm')}–{nm('range_end_nm')} nm "
-            f"in steps of {nm('step_nm')} nm; onto the 1 nm grid: "
-            f"{INTERPOLATION_WORDS.get(r.get('interpolation'), r.get('interpolation') or MISSING)}")
+    method = INTERPOLATION_WORDS.get(r.get("interpolation"), r.get("interpolation") or MISSING)
+    data = (f"{r.get('quantity')} spectrum ({unit}) · {nm('range_start_nm')}–{nm('range_end_nm')} nm in "
+            f"{nm('step_nm')} nm steps · onto the 1 nm grid: {method}")
     return f"{r.get('source') or ''}\n{data}"
 
 

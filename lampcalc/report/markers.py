@@ -13,8 +13,8 @@ from ..rating.flags import FLAG_MEANINGS, doubtful_keys, explain
 from ..verdicts.wording import MISSING, format_value
 
 VALIDITY_LEGEND = (
-    "( ) a value outside its method's validity (see the lamp's flags): not to be quoted as an ordinary value. "
-    f"{MISSING} not computable for this lamp, or not given."
+    "( ) a value in doubt: outside its method's validity, or computed with values not confirmed from a published "
+    f"source (see the flags); not to be quoted as an ordinary value. {MISSING} not computable for this lamp, or not given."
 )
 
 

@@ -76,9 +76,8 @@ def _plain_number(value, decimals, signed=False):
     if decimals is None:
         magnitude = abs(value)
         if magnitude and (magnitude < 0.01 or magnitude >= 1e6):
-            exponent = math.floor(math.log10(magnitude))
-            mantissa = f"{value / 10.0**exponent:{sign}.3f}"
-            return f"{mantissa} × 10{str(exponent).translate(_SUPERSCRIPT)}"
+            mantissa, exponent = f"{value:{sign}.3e}".split("e")  # Python's rounding, subnormals included
+            return f"{mantissa} × 10{str(int(exponent)).translate(_SUPERSCRIPT)}"
         decimals = max(0, 3 - math.floor(math.log10(magnitude))) if magnitude else 0
     text = f"{value:{sign}.{decimals}f}"
     if float(text) == 0:  # no "-0.0"

@@ -50,8 +50,8 @@ def test_numbers_never_use_exponent_notation_and_read_back(key, value):
     if "×" in text:
         mantissa, exponent = text.split(" × 10")
         exponent = int(exponent.translate(str.maketrans("⁻⁰¹²³⁴⁵⁶⁷⁸⁹", "-0123456789")))
-        shown = float(mantissa) * 10.0**exponent
-        assert shown == pytest.approx(value, rel=6e-4)
+        shown = float(f"{mantissa}e{exponent}")
+        assert shown == pytest.approx(value, rel=6e-4, abs=1e-320)
     else:
         decimals = len(text.split(".")[1]) if "." in text else 0
         assert abs(float(text) - value) <= 0.5 * 10.0**-decimals * (1 + 1e-9) + 1e-12 * abs(value)
