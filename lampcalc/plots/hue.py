@@ -2,7 +2,8 @@
 
 Bars are drawn on fixed scales (:data:`BAR_SCALES`), stated on their axes, so that a lamp
 that shifts nothing shows small bars and a poor lamp large ones; a value beyond its scale
-is drawn to the scale's edge with an open triangle and its value written beside it.
+is drawn to the scale's edge with an open triangle, and its value written beside it (when no
+more than :data:`MAX_NUMBERED` bars are beyond the scale; the numbers are in the tables anyway).
 :class:`HueBars` and :class:`HueGraphic` draw their fixed parts once and are updated per lamp.
 """
 
@@ -18,6 +19,8 @@ BAR_SCALES = {
     "hue": (-0.4, 0.4, "hue shift Rhs,h (rad)"),
 }
 _CENTRES = np.deg2rad(22.5 * np.arange(N_BINS) + 11.25)
+#: Values beyond the scale are written beside their triangle when there are at most this many.
+MAX_NUMBERED = 4
 
 
 def normalised_bins(ref_ab_bins, test_ab_bins):
@@ -153,9 +156,10 @@ class HueBars:
         self.below.set_path(self._path(bins[down], shown[down]))
         span = self.high - self.low
         beyond = {"above": [], "below": []}
+        numbered = np.sum((values > self.high) | (values < self.low)) <= MAX_NUMBERED
         for k, (v, note) in enumerate(zip(values, self.beyond)):
             side = "above" if v > self.high else "below" if v < self.low else None
-            note.set_visible(side is not None)
+            note.set_visible(side is not None and bool(numbered))
             if side:
                 edge = self.high if side == "above" else self.low
                 beyond[side].append((k + 1, edge))

@@ -44,7 +44,14 @@ SPECTRUM_NOTE = "Lamp solid; CIE 224 reference dashed; V(λ) dotted; melanopic a
 
 
 def _white(record):
-    return record.get("cct_K") is not None and "rendering_not_meaningful" not in (record.get("flags") or ())
+    """Near the Planckian locus: a CCT worth quoting (CIE 015: within 0.05 in Duv), so a category and steps."""
+    flags = record.get("flags") or ()
+    return record.get("cct_K") is not None and "duv_beyond_0.05" not in flags and "rendering_not_meaningful" not in flags
+
+
+def _rendered(record):
+    """Colour rendering indices were computed (a reference illuminant exists)."""
+    return record.get("ra") is not None or record.get("rf") is not None
 
 
 def _category_words(r):
@@ -189,7 +196,7 @@ class LampPages:
                 y = self._flags(page, sheet, record, y)
                 # The colour point takes what the rendering tables and the spectrum's least height leave.
                 tables = _rendering_tables(record)
-                rendering_h = HEADING_MM + max(t.height() for t in tables) + 2 if _white(record) else 14.0
+                rendering_h = HEADING_MM + max(t.height() for t in tables) + 2 if _rendered(record) else 14.0
                 room = sheet.bottom - y - SPECTRUM_MIN_MM - rendering_h
                 point_h = min(62.0 if _white(record) else 84.0, max(46.0, room))
                 y = self._colour_point(page, sheet, axes, record, y, point_h)
@@ -258,7 +265,7 @@ class LampPages:
 
     def _rendering(self, page, sheet, axes, report, i, record, y, tables):
         y += heading(page, sheet.left, y, "Colour rendering", sheet.width)
-        if not _white(record):
+        if not _rendered(record):
             reason = explain("rendering_not_meaningful") if "rendering_not_meaningful" in (record.get("flags") or ()) \
                 else "no CCT, so no reference illuminant"
             return y + paragraph(page, sheet.left, y, f"Not evaluated: {reason}.", sheet.width, size=7, color=MUTED) + 2

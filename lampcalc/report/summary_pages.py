@@ -18,15 +18,18 @@ from .markers import VALIDITY_LEGEND, flag_legend, flag_letters, quote
 from .tables import Cell, Column, Table, key_values, key_values_height, line_mm, paragraph, paragraph_height
 
 #: The least height left for the diagram under the table, mm.
-DIAGRAM_MIN_MM = 92.0
+DIAGRAM_MIN_MM = 84.0
 #: At most this many lamps in one page's table (and diagram).
 MAX_ROWS = 24
 _COLUMNS = [  # header, share of the width, alignment
-    ("#", 6.5, "right"), ("lamp", 24.0, "left"), ("CCT\nK", 10.0, "right"), ("Duv", 12.0, "right"),
-    ("ANSI\nK", 9.0, "right"), ("steps", 9.0, "right"), ("Ra", 11.0, "right"), ("R9", 11.0, "right"),
-    ("Rf", 11.0, "right"), ("Rg", 11.0, "right"), ("LER\nlm/W", 10.5, "right"), ("S/P", 8.0, "right"),
-    ("mel-\nDER", 10.0, "right"), ("flags", 8.5, "left"), ("claims", 24.5, "left"),
+    ("#", 6.5, "right"), ("lamp", 25.0, "left"), ("CCT\nK", 9.5, "right"), ("Duv", 13.0, "right"),
+    ("ANSI\nK", 11.0, "right"), ("steps", 10.0, "right"), ("Ra", 11.0, "right"), ("R9", 11.0, "right"),
+    ("Rf", 10.0, "right"), ("Rg", 10.0, "right"), ("LER\nlm/W", 10.5, "right"), ("S/P", 7.5, "right"),
+    ("mel-\nDER", 9.5, "right"), ("flags", 9.0, "left"), ("claims", 22.5, "left"),
 ]
+#: Columns whose cells wrap onto more lines rather than being shortened.
+_WRAPPED = ("lamp", "flags", "claims")
+TABLE_PT = 6.4
 COLUMN_NOTES = (
     "CCT and Duv: exact, CIE 015:2018, 2° observer. ANSI: the ANSI C78.377-2017 category whose quadrangle holds "
     "the lamp. Steps: colour-consistency steps from the claimed nominal CCT's centre, else the nearest category's. "
@@ -44,7 +47,7 @@ def _row(number, record, verdict, letters):
     status = lamp_status(verdict) if verdict is not None else True
     claims = Cell(short_status(verdict), weight="bold" if status is False else "normal",
                   color=LAMP if status is False else INK)
-    flags = ",".join(letters[f] for f in record.get("flags") or ())
+    flags = ", ".join(letters[f] for f in record.get("flags") or ())
     return [str(number), record["name"], quote(record, "cct_K"), quote(record, "duv"), quote(record, "ansi_nominal_cct_K"),
             quote(record, "sdcm_steps"), quote(record, "ra"), quote(record, "ri", index=8), quote(record, "rf"),
             quote(record, "rg"), quote(record, "ler_lm_per_W"), quote(record, "sp_ratio"),
@@ -83,7 +86,7 @@ class SummaryPages:
 
         width = report.paper.width_mm - 2 * MARGIN_MM
         scale = width / sum(share for _, share, _ in _COLUMNS)
-        columns = [Column(h, share * scale, align, wrap=h == "claims") for h, share, align in _COLUMNS]
+        columns = [Column(h, share * scale, align, wrap=h in _WRAPPED) for h, share, align in _COLUMNS]
         letters = flag_letters(report.records)
         rows = [_row(k + 1, r, v, letters) for k, (r, v) in enumerate(zip(report.records, report.lamp_verdicts))]
         avail = report.paper.height_mm - 2 * MARGIN_MM - HEADER_MM - FOOTER_MM
@@ -117,7 +120,7 @@ class SummaryPages:
 
     def _table_height(self, columns, rows, report, letters, start, width):
         legend = self._legend(report, letters, start, start + len(rows), width)
-        return Table(columns, rows).height() + 2 + sum(paragraph_height(t, width, size=6) + 0.6 for t in legend) + 3
+        return Table(columns, rows, size=TABLE_PT, pad_mm=0.8).height() + 2 + sum(paragraph_height(t, width, size=6) + 0.6 for t in legend) + 3
 
     def count(self, report):
         return len(self._layout(report)[3])
@@ -133,7 +136,7 @@ class SummaryPages:
                 y = sheet.top
                 if k == 0:
                     y = self._opening(page, report, sheet, y)
-                y += Table(columns, rows[start:end]).draw(page, sheet.left, y) + 2
+                y += Table(columns, rows[start:end], size=TABLE_PT, pad_mm=0.8).draw(page, sheet.left, y) + 2
                 for text in self._legend(report, letters, start, end, width):
                     y += paragraph(page, sheet.left, y, text, width, size=6, color=MUTED) + 0.6
                 self._diagram(page, report, sheet, y + 3, start, end)

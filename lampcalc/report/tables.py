@@ -60,6 +60,8 @@ def wrap(text, width_mm, size_pt, weight="normal"):
                 cut = len(line) - 1
                 while cut > 1 and text_width_mm(line[:cut], size_pt, weight) > width_mm:
                     cut -= 1
+                joint = max(line.rfind(c, 0, cut) for c in "-_/.")  # a long word breaks after a joint if it can
+                cut = joint + 1 if joint > 0 else cut
                 lines.append(line[:cut])
                 line = line[cut:]
         lines.append(line)
@@ -203,8 +205,8 @@ class Table:
         head = self.header_height()
         left = x_mm
         for column in self.columns:
-            page.text(self._anchor(column, left), y_mm + head - 1.5, column.header, size=self.header_size,
-                      weight="bold", color=INK, ha=column.align, va="bottom", linespacing=1.2)
+            page.text(self._anchor(column, left), y_mm + head - 2.1, column.header, size=self.header_size,
+                      weight="bold", color=INK, ha=column.align, va="baseline", linespacing=1.2)
             left += column.width_mm
         page.rule(x_mm, x_mm + width, y_mm + head - 0.6, lw=0.7, color=INK)
         top = y_mm + head
