@@ -15,7 +15,7 @@ from ..plots.diagram import ChromaticityDiagram, near_white
 from ..plots.style import INK, LAMP, MUTED, pin_axis_labels
 from ..verdicts.wording import count_line, lamp_status, short_status
 from .markers import VALIDITY_LEGEND, flag_legend, flag_letters, quote
-from .tables import Cell, Column, Table, key_values, key_values_height, line_mm, paragraph, paragraph_height
+from .tables import Cell, Column, Table, key_values, wrap, key_values_height, line_mm, paragraph, paragraph_height
 
 #: The least height left for the diagram under the table, mm.
 DIAGRAM_MIN_MM = 84.0
@@ -70,6 +70,17 @@ def _overview(report):
     return lead, count_line(report.verdicts) + "."
 
 
+#: The notes of the report information are printed up to this many lines.
+NOTES_MAX_LINES = 40
+
+
+def _notes(report, width):
+    lines = wrap(report.info.notes, width, 7.0)
+    if len(lines) <= NOTES_MAX_LINES:
+        return report.info.notes
+    return "\n".join(lines[:NOTES_MAX_LINES - 1] + ["… (the notes go on: shortened to fit the page)"])
+
+
 def _info_columns(items):
     return items[: (len(items) + 1) // 2], items[(len(items) + 1) // 2:]
 
@@ -92,6 +103,8 @@ class SummaryPages:
         avail = report.paper.height_mm - 2 * MARGIN_MM - HEADER_MM - FOOTER_MM
         first = self._opening_height(report, width)
         pages, start = [], 0
+        if first + self._table_height(columns, rows[:1], report, letters, 0, width) + DIAGRAM_MIN_MM > avail:
+            pages.append((0, 0))  # long report information: a first page of its own
         while start < len(rows) or not pages:
             used = first if not pages else 0.0
             end = start + 1
@@ -109,7 +122,7 @@ class SummaryPages:
     def _opening_height(self, report, width):
         half = width / 2 - 4
         info = max((key_values_height(column, half - 24) for column in _info_columns(report.info.items())), default=0)
-        notes = paragraph_height(report.info.notes, width, size=7) + 2 if report.info.notes else 0.0
+        notes = paragraph_height(_notes(report, width), width, size=7) + 2 if report.info.notes else 0.0
         lead, counts = _overview(report)
         return (info + 3 if info else 0) + notes + paragraph_height(lead, width, size=8.5, weight="bold") + 1 + (
             paragraph_height(counts, width, size=7) if counts else 0) + 3
@@ -129,13 +142,15 @@ class SummaryPages:
         columns, rows, letters, pages, width = self._layout(report)
         for k, (start, end) in enumerate(pages):
             title = report.info.heading
+            which = f"lamps {start + 1}–{end}" if end > start else "report information"
             subtitle = f"Summary of {len(rows)} lamp{'s' if len(rows) != 1 else ''}" + (
-                f"{', continued' if k else ''}: lamps {start + 1}–{end} (summary page {k + 1} of {len(pages)})"
-                if len(pages) > 1 else "")
+                f"{', continued' if k else ''}: {which} (summary page {k + 1} of {len(pages)})" if len(pages) > 1 else "")
             with sheet.page("summary", title, subtitle) as page:
                 y = sheet.top
                 if k == 0:
                     y = self._opening(page, report, sheet, y)
+                if start == end:
+                    continue
                 y += Table(columns, rows[start:end], size=TABLE_PT, pad_mm=0.8).draw(page, sheet.left, y) + 2
                 for text in self._legend(report, letters, start, end, width):
                     y += paragraph(page, sheet.left, y, text, width, size=6, color=MUTED) + 0.6
@@ -148,7 +163,7 @@ class SummaryPages:
                      key_values(page, sheet.left + sheet.width / 2, y, right, 24, half - 24))
         y += height + (3 if height else 0)
         if report.info.notes:
-            y += paragraph(page, sheet.left, y, report.info.notes, sheet.width, size=7) + 2
+            y += paragraph(page, sheet.left, y, _notes(report, sheet.width), sheet.width, size=7) + 2
         status = [lamp_status(v) for v in report.lamp_verdicts if v is not None]
         lead, counts = _overview(report)
         colour = LAMP if False in status or None in status else INK

@@ -27,3 +27,20 @@ def test_quote_marks_doubtful_values_and_tolerates_missing_keys():
     assert quote(record, "ra") == "(81.3)" and quote(record, "ri", index=8) == "(90.0)"
     assert quote(record, "dominant_wavelength_nm") == "–"  # a key of a later lampcalc, absent here
     assert quote({"rf": 80.0, "flags": []}, "rf") == "80.0"
+
+
+def test_long_report_information_gets_a_page_of_its_own(tmp_path, two_lamps):
+    # Internal layout rule (no published source): rows never run into the report information.
+    from lampcalc.report.document import Report
+    from lampcalc.report.summary_pages import NOTES_MAX_LINES, PAGES as SUMMARY
+
+    from .conftest import pdf_pages
+
+    notes = " ".join(f"Sentence {k} about how the spectra were measured." for k in range(400))
+    report = Report(two_lamps, info={"notes": notes, "report_number": "L-1"}, pages=[SUMMARY])
+    path = tmp_path / "long.pdf"
+    assert report.write(path) == 2
+    first, second = pdf_pages(path)
+    assert "Sentence 0 " in first and "shortened to fit the page" in first and "blackbody 3000 K" not in first
+    assert "blackbody 3000 K" in second and "red LED 630 nm" in second
+    assert NOTES_MAX_LINES >= 10
