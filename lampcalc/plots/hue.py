@@ -120,7 +120,7 @@ class HueBars:
             artist.set_in_layout(False)  # not in a layout's reckoning while empty or hidden
         if low < 0:
             ax.axhline(0, color=INK, lw=0.5)
-        ax.set_xticks(bins)
+        ax.set_xticks(bins[[0, 3, 7, 11, 15]])  # 1, 4, 8, 12, 16: enough to count the bars by
         ax.tick_params(axis="x", length=0)
         ax.set_xlim(0.3, N_BINS + 0.7)
         ax.set_ylim(low, high)

@@ -246,6 +246,25 @@ class Page:
         self._added.append(patch)
         return patch
 
+    def bands(self, boxes_mm, *, color=MUTED, alpha=1.0):
+        """Filled rectangles (x, y, w, h in mm, top-left corners) drawn as one patch."""
+        from matplotlib.patches import PathPatch
+        from matplotlib.path import Path
+
+        if not boxes_mm:
+            return None
+        vertices, codes = [], []
+        for box in boxes_mm:
+            left, bottom, width, height = self.box(*box)
+            vertices += [(left, bottom), (left + width, bottom), (left + width, bottom + height), (left, bottom + height),
+                         (left, bottom)]
+            codes += [Path.MOVETO, Path.LINETO, Path.LINETO, Path.LINETO, Path.CLOSEPOLY]
+        patch = PathPatch(Path(vertices, codes), facecolor=color, edgecolor="none", alpha=alpha,
+                          transform=self.fig.transFigure, zorder=0)
+        self.fig.add_artist(patch)
+        self._added.append(patch)
+        return patch
+
     def keep(self, *artists):
         """Have ``artists`` taken away after this page, like the page's own text."""
         self._added.extend(artists)

@@ -36,10 +36,10 @@ SPECTRUM_MIN_MM = 54.0  # heading, plot (at least 33 mm) and caption
 _CLAIM_COLUMNS = (("claim", 0.285, "left", False), ("measured", 0.095, "right", False), ("margin", 0.10, "right", False),
                   ("verdict", 0.13, "left", False), ("why", 0.39, "left", False))
 CLAIMS_NOTE = (
-    "Margin: distance from the claim's limit, negative when short of it (quadrangle: from its nearest edge in "
-    f"(u, v)). {QUALIFIED} qualified, see Methods."
+    f"Margin: distance from the claim's limit, negative when short of it (quadrangle: from its nearest edge in (u, v)). "
+    f"{QUALIFIED} qualified, see Methods."
 )
-HUE_NOTE = "TM-30-18 hue bins: reference dashed, lamp solid; bars on fixed scales (see Methods)."
+HUE_NOTE = "Reference dashed, lamp solid; bars on fixed scales (Methods)."
 SPECTRUM_NOTE = "Lamp solid; CIE 224 reference dashed; V(λ) dotted; melanopic action spectrum dash-dotted."
 
 
@@ -301,12 +301,11 @@ class LampPages:
         ax.set_position(page.box(sheet.left + 9, y + 1, sheet.width - table_w - 14, height - 9))
         reference = reference if np.all(np.isfinite(reference)) else None
         axes.spectrum.update(batch.values[i], reference=reference, measured_range_nm=batch.measured_range_nm[i])
-        columns = [Column("α-opic", 17, "left"), Column("ELR\nmW/lm", 17, "right"), Column("DER", 16, "right")]
+        columns = [Column("α-opic\n(CIE S 026)", 19, "left"), Column("ELR\nmW/lm", 16, "right"),
+                   Column("DER\n(D65)", 15, "right")]
         rows = [[name.replace("_", "-"), quote(record, f"{name}_elr_mW_per_lm"), quote(record, f"{name}_der")]
                 for name in ALPHA_OPIC]
-        drawn = Table(columns, rows, size=6.2).draw(page, sheet.right - table_w, y + 1)
-        paragraph(page, sheet.right - table_w, y + drawn + 2, "CIE S 026/E:2018; DER against D65.", table_w, size=5.6,
-                  color=MUTED)
+        Table(columns, rows, size=6.2).draw(page, sheet.right - table_w, y + 1)
         paragraph(page, sheet.left, sheet.bottom - note_h + 1, SPECTRUM_NOTE, sheet.width, size=5.8, color=MUTED)
 
 

@@ -10,6 +10,8 @@ where it does not.
 import functools
 from dataclasses import dataclass
 
+import numpy as np
+
 from ..plots.style import FAINT, INK, LAMP, MUTED, plain_text
 
 PT_TO_MM = 25.4 / 72.0
@@ -212,11 +214,9 @@ class Table:
         top = y_mm + head
         heights = self.row_heights()
         if self.band:
-            y = top
-            for k, height in enumerate(heights):
-                if k % 2 == 1:
-                    page.band(x_mm, y, width, height, color=FAINT, alpha=0.35)
-                y += height
+            edges = np.cumsum([top, *heights])
+            page.bands([(x_mm, edges[k], width, heights[k]) for k in range(1, len(heights), 2)], color=FAINT,
+                       alpha=0.35)
         left = x_mm
         text_top = top + (self.line - line_mm(self.size, 1.0)) / 2 - 0.25
         for c, column in enumerate(self.columns):
