@@ -41,8 +41,27 @@ def demo(out_dir):
     )
     if status == 2:
         sys.exit(2)
+    demo_uncertainty(out)
     demo_figures(ratings, out)
     click.echo(f"\nResults in {out}/")
+
+
+def demo_uncertainty(out):
+    """One lamp's verdicts with the measurement uncertainty of the supplier's own laboratory."""
+    from ..io.demo_data import demo_claims, demo_folder, demo_measurement_model
+    from ..verdicts.decision_rules import DecisionRule
+
+    lamp, model = "QF-A60-3000", demo_measurement_model()
+    click.echo(
+        f"\nHow sure is the verdict? {lamp} as the supplier's quality-control spectrometer measures it "
+        f"({model.name}), with guarded acceptance:\n"
+    )
+    status, _ = check_and_write(
+        [demo_folder() / "quillfen_led_range_1nm.csv"], demo_claims(), json_out=out / "checks_uncertainty.json",
+        quiet_table=True, uncertainty=model, rule=DecisionRule("guarded"), lamps=(lamp,),
+    )
+    if status == 2:
+        sys.exit(2)
 
 
 def demo_figures(ratings, out):

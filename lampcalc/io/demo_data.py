@@ -22,3 +22,8 @@ def demo_files():
 def demo_claims():
     """The fictional supplier's claims file."""
     return demo_folder() / "claims_quillfen.csv"
+
+
+def demo_measurement_model():
+    """The measurement model of the fictional supplier's quality-control spectrometer (TOML)."""
+    return demo_folder() / "quillfen_qc_lab_model.toml"

@@ -19,6 +19,7 @@ FLAG_MEANINGS = {
     "cri_outside_validity": "DC > 5.4e-3: Ra and Ri computed outside CIE 13.3's validity",
     "rendering_not_meaningful": "no CCT in range, hence no reference illuminant: Ra, Ri, Rf, Rg are null",
     "steps_metric_outside_iec_range": "steps counted with the nearest IEC 60081 metric (nominal CCT outside 2700–6500 K)",
+    "uncertainty_incomplete": "some Monte Carlo draws gave no value for a rating (e.g. no CCT): its uncertainty is null",
 }
 
 #: Flag -> output keys whose values it makes doubtful (shown in parentheses, never as ordinary).

@@ -86,9 +86,13 @@ class Ratings:
     def __len__(self):
         return len(self.columns["name"])
 
+    def output_keys(self):
+        """Output keys present, in :data:`FIELDS` order; a key's ``_u`` and ``_interval95`` follow it."""
+        return [k for key in FIELDS for k in (key, f"{key}_u", f"{key}_interval95") if k in self.columns]
+
     def records(self):
-        """One dict per lamp, keys in :data:`FIELDS` order, NaN as None."""
-        keys = [k for k in FIELDS if k in self.columns]
+        """One dict per lamp, keys in :meth:`output_keys` order, NaN as None."""
+        keys = self.output_keys()
         return [{k: plain(self.columns[k][i]) for k in keys} for i in range(len(self))]
 
     def to_json(self):
@@ -98,7 +102,7 @@ class Ratings:
     def to_csv(self):
         """CSV text: one row per lamp; list fields are joined with ';'."""
         records = self.records()
-        keys = [k for k in FIELDS if k in self.columns]
+        keys = self.output_keys()
         out = io.StringIO()
         writer = csv.writer(out, lineterminator="\n")
         writer.writerow(keys)

@@ -26,7 +26,7 @@ from dataclasses import dataclass, field
 import numpy as np
 
 from ..errors import InputError
-from ..io.serialise import plain
+from ..io.serialise import cell, plain
 from ..standards.ansi_bins import DUV_TOLERANCE, category, quadrangle_margin
 from ..standards.steps import steps_from_nominal
 
@@ -195,6 +195,9 @@ def check_lamp(claim, ratings, i, sdcm_method="ellipse", sdcm_centre="ansi"):
     return checks
 
 
+_CHECK_KEYS = ("criterion", "claimed", "measured", "margin", "pass", "note")
+
+
 @dataclass
 class Verdicts:
     """Results of checking a claims file against a batch's ratings."""
@@ -222,26 +225,35 @@ class Verdicts:
             text += f"; not claimed: {', '.join(self.unclaimed)}"
         return text
 
+    def _extra_keys(self):
+        """Keys a layer on top (the measurement uncertainty) added to the checks, in order."""
+        keys = [k for lamp in self.lamps for c in lamp["checks"] for k in c if k not in _CHECK_KEYS]
+        return list(dict.fromkeys(keys))
+
     def to_json(self):
+        keys = _CHECK_KEYS + tuple(self._extra_keys())
         out = [
             {
                 "lamp": lamp["lamp"],
                 "pass": lamp["pass"],
-                "checks": [{k: plain(c[k]) for k in ("criterion", "claimed", "measured", "margin", "pass", "note")} for c in lamp["checks"]],
+                **({"decision": lamp["decision"]} if "decision" in lamp else {}),
+                "checks": [{k: plain(c.get(k)) for k in keys} for c in lamp["checks"]],
             }
             for lamp in self.lamps
         ]
         return json.dumps(out, indent=1, allow_nan=False) + "\n"
 
     def to_csv(self):
+        extra = self._extra_keys()
         buffer = io.StringIO()
         writer = csv.writer(buffer, lineterminator="\n")
-        writer.writerow(["lamp", "criterion", "claimed", "measured", "margin", "pass", "note"])
+        writer.writerow(["lamp", "criterion", "claimed", "measured", "margin", "pass", "note", *extra])
         for lamp in self.lamps:
             for c in lamp["checks"]:
                 writer.writerow(
                     [lamp["lamp"], c["criterion"], *("" if c[k] is None else repr(float(c[k])) for k in ("claimed", "measured", "margin")),
-                     {True: "pass", False: "fail", None: "cannot check"}[c["pass"]], c["note"]]
+                     {True: "pass", False: "fail", None: "cannot check"}[c["pass"]], c["note"],
+                     *(cell(plain(c.get(k))) for k in extra)]
                 )
         return buffer.getvalue()
 
