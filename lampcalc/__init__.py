@@ -79,6 +79,14 @@ _EXPORTS = {
     "circle_steps": "standards.steps",
     "read_claims": "verdicts.claims",
     "check_claims": "verdicts.claims",
+    "MeasurementModel": "rating.measurement_model",
+    "read_measurement_model": "rating.measurement_model",
+    "rate_with_uncertainty": "rating.uncertainty",
+    "coverage_interval": "rating.uncertainty",
+    "slit_convolution": "rating.uncertainty",
+    "DecisionRule": "verdicts.decision_rules",
+    "ClaimDraws": "verdicts.claim_uncertainty",
+    "judge_with_uncertainty": "verdicts.claim_uncertainty",
     "write_report": "report.pdf",
 }
 

@@ -17,6 +17,11 @@ def test_demo_writes_results(run, tmp_path):
         absolute["luminous_flux_lm"] / 10.0
     )
     assert (out / "ratings.csv").read_text().startswith("name,source,")
+    # One lamp's verdicts with the fictional laboratory's measurement uncertainty (ILAC-G8 guarded acceptance).
+    assert "How sure is the verdict? QF-A60-3000" in result.stdout and "decision rule: guarded acceptance" in result.stdout
+    judged = json.loads((out / "checks_uncertainty.json").read_text())
+    assert [lamp["lamp"] for lamp in judged] == ["QF-A60-3000"]
+    assert all(c["decision"] in ("pass", "conditional pass", "conditional fail", "fail") for c in judged[0]["checks"])
 
 
 # --- lampcalc cct ---
