@@ -100,18 +100,22 @@ class ClaimDraws:
     def __init__(self, claims, sdcm_method="ellipse", sdcm_centre="ansi"):
         self.claims = claims
         self.options = {"sdcm_method": sdcm_method, "sdcm_centre": sdcm_centre}
-        self.parts = {}
+        self.parts = {}  # lamp index -> (name, [criterion draws of each chunk])
 
     def __call__(self, lamp_index, draws):
         name = draws["name"][0]
         claim = self.claims.get(name)
         if claim is not None:
-            self.parts.setdefault(name, []).append(criterion_draws(claim, draws, **self.options))
+            self.parts.setdefault(lamp_index, (name, []))[1].append(criterion_draws(claim, draws, **self.options))
 
-    def draws(self, lamp, criterion):
-        """(measured, margin) over every draw of ``lamp`` for ``criterion``; None if not collected."""
-        parts = self.parts.get(lamp)
-        if not parts or criterion not in parts[0]:
+    def lamps(self):
+        """(lamp index, name) of every claimed lamp collected, in the ratings' order."""
+        return [(i, self.parts[i][0]) for i in sorted(self.parts)]
+
+    def draws(self, lamp_index, criterion):
+        """(measured, margin) over every draw of a lamp for ``criterion``; None if not collected."""
+        parts = self.parts[lamp_index][1]
+        if criterion not in parts[0]:
             return None
         return tuple(np.concatenate([p[criterion][j] for p in parts]) for j in (0, 1))
 
@@ -143,11 +147,14 @@ def judge_with_uncertainty(verdicts, claim_draws, rule):
     """
     from .decision_rules import worst
 
+    collected = claim_draws.lamps()
+    if [name for _, name in collected] != [lamp["lamp"] for lamp in verdicts.lamps]:
+        raise ValueError("the Monte Carlo draws were not collected for the lamps of these verdicts")
     lamps = []
-    for lamp in verdicts.lamps:
+    for (index, _), lamp in zip(collected, verdicts.lamps):
         checks = []
         for check in lamp["checks"]:
-            found = claim_draws.draws(lamp["lamp"], check["criterion"])
+            found = claim_draws.draws(index, check["criterion"])
             measured, margin = found if found else (np.array([np.nan]), np.array([np.nan]))
             measured_u, measured_interval = _spread(measured, check["measured"])
             margin_u, margin_interval = _spread(margin, check["margin"])

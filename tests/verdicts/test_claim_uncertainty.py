@@ -119,3 +119,20 @@ def test_files_carry_the_new_keys(four_claims):
     assert header[:7] == plain.to_csv().splitlines()[0].split(",") and header[7:] == list(UNCERTAINTY_CHECK_KEYS)
     row = next(r for r in judged.to_csv().splitlines()[1:] if r.startswith("in_band,ra,"))
     assert row.endswith(",conditional pass")
+
+
+def test_two_lamps_of_one_name_keep_their_own_draws():
+    # Two files may hold a lamp of the same name; each check must take its own lamp's draws.
+    from lampcalc.physics.blackbody import spectral_radiance
+    from lampcalc.spectra.batch import SpectralBatch
+
+    wl = np.arange(380.0, 781.0, 5.0)
+    batches = [SpectralBatch(wl, spectral_radiance(t, wl)[None], ("twin",)) for t in (2900.0, 3150.0)]
+    claims = {"twin": Claim("twin", 2, {"nominal_cct_K": 3000.0})}
+    collected = ClaimDraws(claims)
+    ratings = rate_with_uncertainty(batches, MODEL, nominal_cct_K=[3000.0, 3000.0], on_draws=collected)
+    judged = judge_with_uncertainty(check_claims(claims, ratings), collected, DecisionRule("guarded"))
+    for i, lamp in enumerate(judged.lamps):
+        check = next(c for c in lamp["checks"] if c["criterion"] == "ansi_quadrangle")
+        assert check["measured_u"] == pytest.approx(ratings["cct_K_u"][i], rel=1e-9)
+    assert ratings["cct_K_u"][0] != pytest.approx(ratings["cct_K_u"][1], rel=1e-3)
