@@ -1,7 +1,8 @@
 """lampcalc: rate measured lamp spectra.
 
-Chromaticity, CCT and Duv, colour rendering, photometric ratios, and checks against
-supplier claims and standard bins, computed for whole batches of spectra.
+Chromaticity, CCT and Duv, colour rendering, photometric ratios, checks against
+supplier claims and standard bins, and the statistics of lots, angles and comparisons,
+computed for whole batches of spectra.
 
 The public names below are loaded on first use, so ``import lampcalc`` costs almost
 nothing and the command line starts quickly; ``dir(lampcalc)`` lists them all.
@@ -20,6 +21,7 @@ _EXPORTS = {
     "read_spectra_text": "io.delimited_text",
     "write_spectra_csv": "io.spectrum_files",
     "write_spectra_json": "io.spectrum_files",
+    "write_spectra_spdx": "io.spdx",
     "GRID_NM": "spectra.resampling",
     "resample": "spectra.resampling",
     "spectral_radiance": "physics.blackbody",
@@ -76,9 +78,19 @@ _EXPORTS = {
     "quadrangle_margin": "standards.ansi_bins",
     "steps_from_nominal": "standards.steps",
     "ellipse_steps": "standards.steps",
-    "circle_steps": "standards.steps",
+    "read_bin_set": "standards.bin_sets",
+    "read_ellipse_set": "standards.ellipse_sets",
+    "shipped_ellipse_set": "standards.ellipse_sets",
+    "ansi_bin_set": "standards.ansi_bins",
+    "dominant_wavelength": "colorimetry.dominant_wavelength",
+    "spectral_features": "spectra.features",
     "read_claims": "verdicts.claims",
     "check_claims": "verdicts.claims",
+    "lot_statistics": "verdicts.lot",
+    "read_lot_claims": "verdicts.lot_claims",
+    "check_lot_claims": "verdicts.lot_claims",
+    "colour_over_angle": "verdicts.angles",
+    "compare_ratings": "verdicts.comparison",
     "MeasurementModel": "rating.measurement_model",
     "read_measurement_model": "rating.measurement_model",
     "rate_with_uncertainty": "rating.uncertainty",

@@ -19,6 +19,20 @@ Models
   triangular instrument bandpass, plus the broad Eu²⁺ blue band.
 * Halogen lamp: a graybody filament with a tungsten-like emissivity that falls
   slowly with wavelength (an approximate linear fit, from memory).
+
+Sets in subfolders (``lampcalc lot`` and ``lampcalc compare``):
+
+* ``lot/``: twelve samples of one spot lamp. Each sample's blue die has its own peak
+  wavelength and junction temperature (the supplier's die bin), and its phosphor layer its
+  own load of garnet and nitride (dispensing variation), drawn from normal distributions.
+* ``angles/``: one downlight on a goniometer, 0–80°. Light leaving the package at an angle
+  θ crosses more phosphor: the path length grows as 1 + β·(1/cos θ − 1) (β < 1: scattering
+  mixes directions), the blue that gets through falls as exp(−α·path) and the phosphors
+  emit what the blue loses. Intensity falls as cos θ to a power; the spectra are the
+  irradiance at the detector.
+* ``datasheet/``: the data-sheet spectrum of one lamp (the supplier's smooth, nominal
+  model at 5 nm) and one measured sample of it (another die bin and phosphor load, 1 nm,
+  with noise).
 """
 
 import json
@@ -78,8 +92,8 @@ def lines(centres_nm, strengths, bandpass_nm=4.0, wl=FINE_NM):
     return out
 
 
-def mix(parts, fixed, free, cct, duv):
-    """Sum of ``parts`` at the chromaticity (cct, duv), peak normalised to 1.
+def mix_weights(parts, fixed, free, cct, duv):
+    """Weights of ``parts`` whose sum lies at the chromaticity (cct, duv).
 
     ``fixed`` maps part index to weight; the two ``free`` weights solve the linear
     conditions Σ wᵢ·(Xᵢ − x·Sᵢ) = 0 and Σ wᵢ·(Yᵢ − y·Sᵢ) = 0, Sᵢ = Xᵢ + Yᵢ + Zᵢ.
@@ -94,7 +108,12 @@ def mix(parts, fixed, free, cct, duv):
     weights[list(free)] = np.linalg.solve(rows[:, list(free)], -rows @ weights)
     if np.any(weights < 0):
         raise ValueError(f"no physical mixture reaches {cct} K, Duv {duv}: weights {weights}")
-    spectrum = weights @ np.array(parts)
+    return weights
+
+
+def mix(parts, fixed, free, cct, duv):
+    """Sum of ``parts`` at the chromaticity (cct, duv), peak normalised to 1 (see :func:`mix_weights`)."""
+    spectrum = mix_weights(parts, fixed, free, cct, duv) @ np.array(parts)
     return spectrum / spectrum.max()
 
 
@@ -139,6 +158,51 @@ def lamps():
     halogen = spectral_radiance(2900.0, FINE_NM, emissivity=emissivity)
     out["QF-HAL-2900"] = halogen / halogen.max()
     return out
+
+
+def die_and_phosphors(blue_peak_nm, blue_junction_K, garnet, nitride, wl=FINE_NM):
+    """The three parts of a phosphor-converted white LED: blue die, garnet, nitride red."""
+    return [die(blue_peak_nm, blue_junction_K, wl=wl), cerium_garnet(garnet, wl=wl), band(nitride, 0.30, wl=wl)]
+
+
+def lot_spectra(rng, n=12):
+    """A lot of one spot lamp (QF-SPOT-3000): name -> spectrum, each with its own die and phosphor load."""
+    weights = mix_weights(die_and_phosphors(451.0, 350.0, 555.0, 628.0), {1: 1.0}, (0, 2), 3000, 0.0006)
+    out = {}
+    for k in range(1, n + 1):
+        parts = die_and_phosphors(rng.normal(451.0, 0.8), rng.normal(350.0, 8.0), 555.0, 628.0)
+        load = weights * np.array([1.0, rng.normal(1.0, 0.02), rng.normal(1.0, 0.03)])
+        spectrum = load @ np.array(parts)
+        out[f"QF-SPOT-3000-S{k:02d}"] = spectrum / spectrum.max()
+    return out
+
+
+def angle_spectra(angles_deg, beta=0.03, exponent=1.3, transmitted_0=0.35):
+    """One downlight (QF-DL-4000) at each angle, peak of the on-axis spectrum = 1, shape (n_angles, n_fine).
+
+    ``transmitted_0``: the share of blue that crosses the phosphor layer on axis.
+    """
+    parts = die_and_phosphors(452.0, 350.0, 555.0, 628.0)
+    weights = mix_weights(parts, {1: 1.0}, (0, 2), 4000, 0.0015)  # the on-axis mixture
+    alpha = -np.log(transmitted_0)
+    phosphor = weights[1] * parts[1] + weights[2] * parts[2]
+    out = []
+    for theta in np.radians(angles_deg):
+        transmitted = np.exp(-alpha * (1.0 + beta * (1.0 / np.cos(theta) - 1.0)))
+        blue = weights[0] * transmitted / transmitted_0
+        converted = (1.0 - transmitted) / (1.0 - transmitted_0)
+        out.append(np.cos(theta) ** exponent * (blue * parts[0] + converted * phosphor))
+    out = np.array(out)
+    return out / out[0].max()
+
+
+def datasheet_and_sample():
+    """QF-A60-2700-R9: the data sheet's nominal spectrum, and one sample (another die bin and phosphor load)."""
+    nominal = [die(452.0), cerium_garnet(530.0), band(628.0, 0.30)]
+    weights = mix_weights(nominal, {1: 1.0}, (0, 2), 2700, 0.0005)
+    sheet = weights @ np.array(nominal)
+    measured = (weights * np.array([1.0, 1.0, 0.94])) @ np.array([die(453.5, 360.0), *nominal[1:]])
+    return sheet / sheet.max(), measured / measured.max()
 
 
 def write_text(path, text):
@@ -201,7 +265,65 @@ def main():
         "lamps": [{"name": "QF-DL-4000", "electrical_W": 10.0, "values": [float(f"{x:.5g}") for x in v]}],
     }
     write_text(OUT / "quillfen_downlight_absolute.json", json.dumps(doc, indent=1) + "\n")
+    write_sets(np.random.default_rng(20261214))  # seeded apart, so the top folder stays as it was
     print(f"lampcalc {lampcalc.__version__}")
+
+
+def write_sets(rng):
+    """The lot, the angle set and the data-sheet comparison, each in a subfolder."""
+    for folder in ("lot", "angles", "datasheet"):
+        (OUT / folder).mkdir(exist_ok=True)
+
+    # A lot of twelve samples, measured one after another: 1 nm, 380-780 nm, one column each.
+    lot = lot_spectra(rng)
+    cols = [sample(v, 380, 780, 1, rng) for v in lot.values()]
+    rows = [",".join(["wavelength_nm", *lot])]
+    rows += [",".join([f"{w:g}", *(f"{c[1][i]:g}" for c in cols)]) for i, w in enumerate(cols[0][0])]
+    write_text(
+        OUT / "lot" / "quillfen_spot3000_lot.csv",
+        f"# {SUPPLIER}: spot lamp QF-SPOT-3000, 12 samples of one delivery, relative spectral flux\n"
+        "# quantity: relative\n" + "\n".join(rows) + "\n",
+    )
+    write_text(
+        OUT / "lot" / "lot_claims_quillfen.toml",
+        f"# {SUPPLIER}: what the data sheet of QF-SPOT-3000 says about a delivery\n"
+        "lampcalc_lot_claims = 1\nproduct = \"QF-SPOT-3000\"\nnominal_cct_K = 3000\n\n"
+        "[[claim]]\ntext = \"95 % of the lamps within 3 steps of 3000 K\"\nwithin_steps = 3\nshare_at_least_percent = 95\n\n"
+        "[[claim]]\ntext = \"mean Ra at least 80\"\nquantity = \"ra_mean\"\nat_least = 80\n\n"
+        "[[claim]]\ntext = \"no lamp below Ra 78\"\nquantity = \"ra_min\"\nat_least = 78\n\n"
+        "[[claim]]\ntext = \"every lamp in the ANSI 3000 K quadrangle\"\ninside_nominal_cct_K = 3000\n"
+        "share_at_least_percent = 100\n",
+    )
+
+    # One downlight on a goniometer, 0-80 degrees: spectral irradiance at the detector, W/(m2 nm).
+    angles = np.arange(0, 81, 10)
+    spectra = angle_spectra(angles) * 2.0e-3  # about 0.35 W/m2 (some 100 lx) on axis
+    names = [f"QF-DL-4000_{a:02d}deg" for a in angles]
+    cols = [sample(v, 380, 780, 2, rng, noise=0.0005) for v in spectra]
+    scale = [v.max() for v in spectra]
+    rows = [",".join(["wavelength_nm", *names])]
+    rows += [",".join([f"{w:g}", *(f"{c[1][i] * m:.5g}" for c, m in zip(cols, scale))]) for i, w in enumerate(cols[0][0])]
+    write_text(
+        OUT / "angles" / "quillfen_dl4000_goniometer.csv",
+        f"# {SUPPLIER}: downlight QF-DL-4000 on a goniometer, C0 plane, spectral irradiance at 5 m\n"
+        "# quantity: irradiance\n# angle_deg: " + " ".join(f"{a:g}" for a in angles) + "\n" + "\n".join(rows) + "\n",
+    )
+
+    # The data sheet's spectrum of QF-A60-2700-R9 (5 nm, as printed) and one sample measured at 1 nm.
+    sheet, measured = datasheet_and_sample()
+    wl, v = sample(sheet, 380, 780, 5, rng, noise=0.0)
+    write_text(
+        OUT / "datasheet" / "quillfen_a60_2700_r9_datasheet.csv",
+        f"# {SUPPLIER}: QF-A60-2700-R9, the spectrum printed on its data sheet\n# quantity: relative\n"
+        "wavelength_nm,QF-A60-2700-R9 data sheet\n" + "\n".join(f"{w:g},{x:.4f}" for w, x in zip(wl, v)) + "\n",
+    )
+    wl, v = sample(measured, 360, 830, 1, rng)
+    write_text(
+        OUT / "datasheet" / "quillfen_a60_2700_r9_sample.csv",
+        f"# {SUPPLIER}: QF-A60-2700-R9, one lamp of a delivery measured in an integrating sphere\n"
+        "# quantity: relative\nwavelength_nm,QF-A60-2700-R9 sample 7\n"
+        + "\n".join(f"{w:g},{x:g}" for w, x in zip(wl, v)) + "\n",
+    )
 
 
 if __name__ == "__main__":

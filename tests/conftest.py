@@ -1,4 +1,4 @@
-"""Shared fixtures: a command-line runner and small spectrum files."""
+"""Shared fixtures: a command-line runner, small spectrum files, invented lots."""
 
 import numpy as np
 import pytest
@@ -17,7 +17,7 @@ BAD_INPUTS = {
     "non_numeric": (b"nm,a\n380,1\n385,abc\n390,1\n", "line 3, column 2 ('a'): 'abc' is not a number"),
     "ragged": (b"nm,a,b\n380,1,1\n385,1\n390,1,1\n", "line 3: ragged row: 2 fields where the table has 3"),
     "decreasing": (b"380,1\n390,1\n385,1\n", "line 3, column 1: wavelength 385 is below the previous one, 390"),
-    "duplicate": (b"380,1\n385,1\n385,1\n", "line 3, column 1: duplicate wavelength 385 (also on line 2)"),
+    "duplicate": (b"380,1\n385,1\n385,1\n", "line 3, column 1: duplicate wavelength 385 (also at line 2, column 1)"),
     "nan": (b"nm,a\n380,1\n385,nan\n", "line 3, column 2 ('a'): 'nan' is not finite"),
     "inf": (b"nm,a\n380,1\n385,inf\n", "'inf' is not finite"),
     "all_zero": (b"nm,a\n380,0\n385,0\n390,0\n", "column 2 ('a'): the spectrum is zero"),
@@ -86,3 +86,66 @@ def bb_table():
 @pytest.fixture
 def grid():
     return GRID_NM
+
+
+# --- invented lots (lampcalc lot, angles, compare) ---
+
+
+def invented_ratings(xy, *, seed=0, **columns):
+    """A Ratings table of invented samples at chromaticities ``xy``; other ratings drawn at random.
+
+    u′, v′ come from colour-science's xy_to_Luv_uv (reference library). Any column can be
+    given instead (``ra=...``, ``flags=...``).
+    """
+    import colour
+
+    from lampcalc.rating.ratings import Ratings
+
+    xy = np.asarray(xy, dtype=float)
+    n = xy.shape[0]
+    rng = np.random.default_rng(seed)
+    upvp = colour.xy_to_Luv_uv(xy)
+    nan = np.full(n, np.nan)
+    cols = {
+        "name": tuple(f"S{k + 1:02d}" for k in range(n)),
+        "source": tuple(f"lot.csv, column {k + 2}" for k in range(n)),
+        "quantity": ("relative",) * n,
+        "x": xy[:, 0],
+        "y": xy[:, 1],
+        "u_prime": upvp[:, 0],
+        "v_prime": upvp[:, 1],
+        "cct_K": rng.normal(3000.0, 40.0, n),
+        "duv": rng.normal(0.001, 0.001, n),
+        "ra": rng.normal(84.0, 1.0, n),
+        "ri": rng.normal(60.0, 10.0, (n, 15)),
+        "rf": rng.normal(83.0, 1.0, n),
+        "rg": rng.normal(101.0, 1.0, n),
+        "ler_lm_per_W": rng.normal(320.0, 3.0, n),
+        "luminous_flux_lm": nan,
+        "radiant_flux_W": nan,
+        "illuminance_lx": nan,
+        "luminance_cd_per_m2": nan,
+        "efficacy_lm_per_W": nan,
+        "sp_ratio": rng.normal(1.3, 0.01, n),
+        "melanopic_der": rng.normal(0.42, 0.004, n),
+        "melanopic_edi_lx": nan,
+        "flags": ((),) * n,
+    }
+    cols.update(columns)
+    return Ratings(cols)
+
+
+@pytest.fixture
+def invent():
+    return invented_ratings
+
+
+def lot_around(centre_xy, n=12, spread=0.0015, seed=1):
+    """Chromaticities of a lot: a normal scatter around ``centre_xy``."""
+    rng = np.random.default_rng(seed)
+    return np.asarray(centre_xy) + rng.normal(0.0, spread, (n, 2))
+
+
+@pytest.fixture
+def around():
+    return lot_around

@@ -11,11 +11,13 @@ from .common import (
     collect_files,
     fail_on_input_errors,
     rate_batches,
+    read_sets,
     read_some,
+    set_options,
     spectrum_options,
-    write_outputs,
 )
-from .printouts import TABLE_NOTES, rating_table, verdict_text
+from .outputs import prepare_outputs, write_outputs
+from .printouts import TABLE_NOTES, flag_legend, rating_table, verdict_text
 from .uncertainty import (
     decision_options,
     decision_text,
@@ -27,42 +29,63 @@ from .uncertainty import (
 )
 
 
-def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_out=None, steps="ellipse",
-                    centre="ansi", quiet_table=False, uncertainty=None, rule=None, lamps=None, **reading):
+def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi", quiet_table=False, uncertainty=None,
+                    rule=None, lamps=None, **reading):
     """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2) and the ratings.
 
-    ``uncertainty``: a measurement-model file, and ``rule`` the DecisionRule applied with it.
-    ``lamps``: check only the claims of these lamps.
+    ``sets``: (bin set, ellipse set) from :func:`~lampcalc.cli.common.read_sets`; the shipped
+    ones by default. ``uncertainty``: a measurement-model file, and ``rule`` the DecisionRule
+    applied with it (simple acceptance by default). ``lamps``: check only these lamps' claims.
+    Status 2 when a spectrum file could not be read or a claimed lamp has no spectrum (the
+    other lamps are still checked), 1 when a claim does not hold or cannot be shown to.
     """
     from ..verdicts.claim_uncertainty import ClaimDraws, judge_with_uncertainty
-    from ..verdicts.claims import check_claims, read_claims
+    from ..verdicts.claims import check_claims, duplicate_names, read_claims
     from ..verdicts.decision_rules import DecisionRule
 
+    bin_set, ellipse_set = sets or read_sets()
     model = load_model(uncertainty)
     claims = read_claims(claims_path)
     if lamps is not None:
         claims = {name: claim for name, claim in claims.items() if name in lamps}
     batches, errors = read_some(files, as_read=model is not None, **reading)
-    nominal = {c.lamp: c.values["nominal_cct_K"] for c in claims.values() if "nominal_cct_K" in c.values}
+    nominal = {}
+    for claim in claims.values():
+        if "nominal_cct_K" in claim.values:
+            nominal[claim.lamp.casefold()] = claim.values["nominal_cct_K"]
+    options = {"ellipse_set": ellipse_set, "sdcm_centre": centre, "bin_set": bin_set}
     if model is None:
-        ratings = rate_batches(batches, nominal)
+        ratings = rate_batches(batches, nominal, (bin_set, ellipse_set))
     else:
-        claim_draws = ClaimDraws(claims, sdcm_method=steps, sdcm_centre=centre)
-        ratings = rate_with_model(batches, model, reading.get("interpolation"), nominal, on_draws=claim_draws)
-    verdicts = check_claims(claims, ratings, claims_path, sdcm_method=steps, sdcm_centre=centre)
+        claim_draws = ClaimDraws(claims, **options)
+        ratings = rate_with_model(
+            batches, model, reading.get("interpolation"), nominal, (bin_set, ellipse_set), on_draws=claim_draws
+        )
+    verdicts = check_claims(claims, ratings, claims_path, **options)
     if not quiet_table:
         click.echo(rating_table(ratings))
-        click.echo(TABLE_NOTES + "\n")
+        click.echo(TABLE_NOTES)
+        if legend := flag_legend(ratings):
+            click.echo("Flags:\n" + legend)
+        click.echo()
     click.echo(verdict_text(verdicts))
     click.echo("\n" + verdicts.summary())
     if model is not None:
         rule = rule or DecisionRule()
         verdicts = judge_with_uncertainty(verdicts, claim_draws, rule)
         click.echo("\n" + uncertainty_table(ratings) + "\n\n" + decision_text(verdicts, rule))
-    write_outputs(ratings, verdicts, json_out, csv_out, report_out)
+    write_outputs(ratings, verdicts, outputs or {})
     click.echo(CAUTION)
+    duplicates = duplicate_names(ratings)
+    if duplicates:
+        click.echo(f"lampcalc: note: {duplicates}", err=True)
+    for lamp in verdicts.lamps:
+        for c in lamp["checks"]:
+            if c["criterion"] == "spectrum":
+                click.echo(f"lampcalc: {claims_path}, {c['note']}", err=True)
     if errors:
         click.echo(f"lampcalc: {len(errors)} of {len(files)} spectrum files could not be read", err=True)
+    if errors or verdicts.missing:
         return 2, ratings
     return (0 if verdicts.all_hold else 1), ratings
 
@@ -71,36 +94,41 @@ def check_and_write(files, claims_path, *, json_out=None, csv_out=None, report_o
 @click.argument("paths", nargs=-1, required=True, type=click.Path(exists=True), metavar="SPECTRA...")
 @click.option(
     "--claims", "claims_path", required=True, type=click.Path(exists=True, dir_okay=False),
-    help="CSV of the supplier's claims, one row per lamp (docs/claims.md).",
+    help="Table of the supplier's claims (CSV, semicolons or tabs), one row per lamp (docs/claims.md).",
 )
 @click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write the verdicts to this JSON file.")
 @click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write one row per check to this CSV file.")
+@click.option("--xlsx", "xlsx_out", type=click.Path(dir_okay=False),
+              help="Write the ratings, their flags and the verdicts to this Excel workbook.")
 @click.option("--report", "report_out", type=click.Path(dir_okay=False), help="Write a PDF report with the verdicts.")
 @click.option(
     "--steps", type=click.Choice(["ellipse", "circle"]), default="ellipse", show_default=True,
-    help="Colour-consistency steps: IEC 60081 ellipses or CIE TN 001 u'v' circles.",
+    help="Colour-consistency steps: IEC 60081 ellipses or CIE TN 001 u'v' circles (shipped sets; --ellipses replaces them).",
 )
 @click.option(
-    "--centre", type=click.Choice(["ansi", "iec"]), default="ansi", show_default=True,
-    help="Centre of the steps: ANSI C78.377 target of the nominal CCT, or the IEC 60081 colour centre.",
+    "--centre", type=click.Choice(["ansi", "set"]), default="ansi", show_default=True,
+    help="Centre of the steps: ANSI C78.377 target of the nominal CCT, or the ellipse set's own centre (IEC 60081's F2700...).",
 )
+@set_options
 @uncertainty_option
 @decision_options
 @spectrum_options
 @fail_on_input_errors
-def check(paths, claims_path, json_out, csv_out, report_out, steps, centre, recursive, uncertainty, decision_rule,
-          guard_band_k, **reading):
+def check(paths, claims_path, json_out, csv_out, xlsx_out, report_out, steps, centre, recursive, bins, ellipses,
+          uncertainty, decision_rule, guard_band_k, **reading):
     """Check a supplier's claims against the spectra: one verdict per claim.
 
-    Exit status 0 when every claim holds, 1 when any does not (or cannot be shown to),
-    2 for bad input.
+    Lamps are matched to claims by name, without regard to case; the claims file is never
+    read as a spectrum. Exit status 0 when every claim holds, 1 when any does not (or
+    cannot be shown to), 2 for bad input (also a claimed lamp with no spectrum).
     """
     rule = rule_from_options(uncertainty, decision_rule, guard_band_k)
-    files = collect_files(paths, recursive)
+    files = collect_files(paths, recursive, exclude=[claims_path])
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
+    outputs = prepare_outputs([*files, claims_path], json=json_out, csv=csv_out, xlsx=xlsx_out, report=report_out)
     status, _ = check_and_write(
-        files, claims_path, json_out=json_out, csv_out=csv_out, report_out=report_out, steps=steps, centre=centre,
+        files, claims_path, outputs=outputs, sets=read_sets(bins, ellipses, steps), centre=centre,
         uncertainty=uncertainty, rule=rule, **reading,
     )
     sys.exit(status)

@@ -80,19 +80,35 @@ def flagged(value, spec, doubtful):
     return f"({text})" if doubtful and text != "-" else text
 
 
-def collect_files(paths, recursive):
-    files = []
+def collect_files(paths, recursive, exclude=()):
+    """The spectrum files among ``paths``, and with -r in their folders; ``exclude`` is never read as spectra.
+
+    Files in folders that are not spectrum files (by suffix) are passed over with one note;
+    hidden files and a spreadsheet program's lock files (``~$book.xlsx``) without one.
+    """
+    skip = {Path(p).resolve() for p in exclude}
+    files, passed_over = [], []
     for p in map(Path, paths):
         if p.is_dir():
             if not recursive:
                 raise Failure(f"{p}: is a folder; pass -r to read the spectrum files inside it")
-            files += sorted(f for f in p.rglob("*") if f.is_file() and f.suffix.lower() in SPECTRUM_SUFFIXES)
-        else:
+            for f in sorted(p.rglob("*")):
+                if not f.is_file() or f.name.startswith((".", "~$")) or f.resolve() in skip:
+                    continue
+                (files if f.suffix.lower() in SPECTRUM_SUFFIXES else passed_over).append(f)
+        elif p.resolve() not in skip:
             files.append(p)
+    if passed_over:
+        shown = ", ".join(str(f) for f in passed_over[:3]) + (" …" if len(passed_over) > 3 else "")
+        click.echo(
+            f"lampcalc: passed over {len(passed_over)} file(s) in folders that are not spectrum files "
+            f"({', '.join(SPECTRUM_SUFFIXES)}): {shown}",
+            err=True,
+        )
     return files
 
 
-def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, interpolation="linear", watts=None,
+def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, interpolation="auto", watts=None,
                as_read=False):
     """Read every file onto the grid; returns ``(batches, errors)``. ``strict`` stops at the first error.
 
@@ -129,7 +145,8 @@ def read_some(files, **reading):
     return batches, errors
 
 
-def rate_batches(batches, nominal=None):
+def rate_batches(batches, nominal=None, sets=None):
+    """Rate the batches together; ``sets`` from :func:`read_sets` (bin set, ellipse set)."""
     from ..rating.rate import rate_spectra
     from ..spectra.batch import SpectralBatch
 
@@ -137,8 +154,41 @@ def rate_batches(batches, nominal=None):
     if batch.n_lamps > 200 and sys.stderr.isatty():
         click.echo(f"rating {batch.n_lamps} lamps ...", err=True)
     names = batch.names
-    nominal_cct = None if nominal is None else [nominal.get(name, float("nan")) for name in names]
-    return rate_spectra(batch, nominal_cct_K=nominal_cct)
+    # claims name their lamps without regard to case: ``nominal`` is keyed by casefolded name
+    nominal_cct = None if nominal is None else [nominal.get(name.casefold(), float("nan")) for name in names]
+    bin_set, ellipse_set = sets or (None, None)
+    return rate_spectra(batch, nominal_cct_K=nominal_cct, bin_set=bin_set, ellipse_set=ellipse_set)
+
+
+def read_sets(bins=None, ellipses=None, steps="ellipse"):
+    """The bin set and ellipse set a command uses: the user's files, else the shipped ones.
+
+    ``ellipses`` (a user's file) takes precedence over ``steps`` (the shipped set's name).
+    """
+    from ..standards.bin_sets import read_bin_set
+    from ..standards.ellipse_sets import read_ellipse_set, shipped_ellipse_set
+
+    bin_set = read_bin_set(bins) if bins else None
+    ellipse_set = read_ellipse_set(ellipses) if ellipses else shipped_ellipse_set(steps)
+    return bin_set, ellipse_set
+
+
+def set_options(fn):
+    """The ``--bins`` and ``--ellipses`` options of the commands that rate spectra."""
+    for option in reversed(
+        [
+            click.option(
+                "--bins", type=click.Path(exists=True, dir_okay=False), default=None, metavar="FILE",
+                help="Bin set file (docs/standard-sets.md): the bins of the bin columns and of nominal-CCT claims.",
+            ),
+            click.option(
+                "--ellipses", type=click.Path(exists=True, dir_okay=False), default=None, metavar="FILE",
+                help="Ellipse set file (docs/standard-sets.md) for the colour-consistency steps.",
+            ),
+        ]
+    ):
+        fn = option(fn)
+    return fn
 
 
 def spectrum_options(fn):
@@ -168,10 +218,11 @@ def spectrum_options(fn):
             ),
             click.option(
                 "--interpolation",
-                type=click.Choice(["linear", "sprague"]),
-                default="linear",
+                type=click.Choice(["auto", "linear", "sprague"]),
+                default="auto",
                 show_default=True,
-                help="Resampling to 1 nm: linear (measured spectra) or Sprague (uniform, smooth data; CIE 167).",
+                help="Resampling to 1 nm. auto: Sprague for uniform data coarser than 1 nm (CIE 167, CIE 015), "
+                "linear for non-uniform data, integration for data finer than 1 nm.",
             ),
         ]
     ):
@@ -179,7 +230,8 @@ def spectrum_options(fn):
     return fn
 
 
-def write_report_file(path, ratings, verdicts=None):
+def write_report_file(path, ratings, verdicts=None, shown_as=None):
+    """Write the PDF report to ``path`` (told as ``shown_as``, the final name, when ``path`` is temporary)."""
     from ..report.pdf import write_report
 
     n_pages = len(ratings) + 2
@@ -188,15 +240,4 @@ def write_report_file(path, ratings, verdicts=None):
             pages = write_report(path, ratings, verdicts, progress=bar.update)
     else:
         pages = write_report(path, ratings, verdicts)
-    click.echo(f"wrote {path} ({pages} pages)", err=True)
-
-
-def write_outputs(ratings, verdicts, json_out, csv_out, report_out):
-    """The files a command was asked for: JSON and CSV of the verdicts (else the ratings), the report."""
-    table = verdicts or ratings
-    for path, text in ((json_out, table.to_json), (csv_out, table.to_csv)):
-        if path:
-            write_text(path, text())
-            click.echo(f"wrote {path}", err=True)
-    if report_out:
-        write_report_file(report_out, ratings, verdicts)
+    click.echo(f"wrote {shown_as or path} ({pages} pages)", err=True)

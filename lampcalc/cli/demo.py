@@ -7,6 +7,7 @@ import click
 
 from .check import check_and_write
 from .common import fail_on_input_errors
+from .outputs import prepare_outputs
 from .rate import rate_and_write
 
 
@@ -32,17 +33,18 @@ def demo(out_dir):
     out.mkdir(parents=True, exist_ok=True)
     files = demo_files()
     click.echo(f"Demo: {len(files)} spectrum files of a fictional supplier (lampcalc's spectra_demo/)\n")
-    if rate_and_write(files, json_out=out / "ratings.json", csv_out=out / "ratings.csv"):
+    rate_outputs = prepare_outputs(files, json=out / "ratings.json", csv=out / "ratings.csv", xlsx=out / "ratings.xlsx")
+    check_outputs = prepare_outputs(files, json=out / "checks.json", csv=out / "checks.csv", report=out / "report.pdf")
+    if rate_and_write(files, outputs=rate_outputs):
         sys.exit(2)
     click.echo(f"\nChecking the supplier's claims ({demo_claims().name}):\n")
-    status, ratings = check_and_write(
-        files, demo_claims(), json_out=out / "checks.json", csv_out=out / "checks.csv",
-        report_out=out / "report.pdf", quiet_table=True,
-    )
+    status, ratings = check_and_write(files, demo_claims(), outputs=check_outputs, quiet_table=True)
     if status == 2:
         sys.exit(2)
     demo_uncertainty(out)
     demo_figures(ratings, out)
+    if demo_sets(out) == 2:
+        sys.exit(2)
     click.echo(f"\nResults in {out}/")
 
 
@@ -56,8 +58,9 @@ def demo_uncertainty(out):
         f"\nHow sure is the verdict? {lamp} as the supplier's quality-control spectrometer measures it "
         f"({model.name}), with guarded acceptance:\n"
     )
+    files = [demo_folder() / "quillfen_led_range_1nm.csv"]
     status, _ = check_and_write(
-        [demo_folder() / "quillfen_led_range_1nm.csv"], demo_claims(), json_out=out / "checks_uncertainty.json",
+        files, demo_claims(), outputs=prepare_outputs(files, json=out / "checks_uncertainty.json"),
         quiet_table=True, uncertainty=model, rule=DecisionRule("guarded"), lamps=(lamp,),
     )
     if status == 2:
@@ -79,3 +82,22 @@ def demo_figures(ratings, out):
         for name, kind, lamps, options in jobs:
             save_figure(FIGURES[kind](ratings, lamps, **options), out / name)
             click.echo(f"wrote {out / name}", err=True)
+
+
+def demo_sets(out):
+    """A lot with its claims, one source over angle, a sample against its data sheet. Returns 2 on bad input."""
+    from ..io.demo_data import demo_folder, demo_lot_claims, demo_set
+    from .compare import compare_and_write
+    from .lot import lot_and_write
+
+    click.echo("\nA delivery of 12 lamps QF-SPOT-3000 (spectra_demo/lot/), with the supplier's claims on it:\n")
+    statuses = [lot_and_write(demo_set("lot"), claims_path=demo_lot_claims(), json_out=out / "lot.json",
+                              csv_out=out / "lot.csv", figures_dir=out / "lot")]
+    click.echo("\nOne downlight QF-DL-4000 from 0 to 80° (spectra_demo/angles/), against a limit of 0.004 Δu'v':\n")
+    statuses.append(lot_and_write(demo_set("angles"), limit=0.004, json_out=out / "angles.json", figures_dir=out / "angles"))
+    click.echo("\nA lamp QF-A60-2700-R9 of a delivery against its data-sheet spectrum (spectra_demo/datasheet/), "
+               "limit 0.003 Δu'v':\n")
+    folder = demo_folder() / "datasheet"
+    statuses.append(compare_and_write(folder / "quillfen_a60_2700_r9_datasheet.csv", folder / "quillfen_a60_2700_r9_sample.csv",
+                                      limit=0.003, json_out=out / "compare.json", figure_out=out / "compare_datasheet.png"))
+    return 2 if 2 in statuses else 0

@@ -87,6 +87,9 @@ def planck(temperatures, as_json, spectrum_out, quantity, per, wl_range):
         if any(r["cct_K"] is None for r in records):
             click.echo("CCT '-': the temperature is outside 1000-100000 K, where lampcalc gives no CCT.")
     if spectrum_out:
+        from .outputs import writable
+
+        writable(spectrum_out, "--spectrum")
         start, end, step = wl_range
         if not (0 < start < end and step > 0):
             raise Failure(f"--range {start:g} {end:g} {step:g}: need 0 < START < END and STEP > 0")

@@ -1,16 +1,19 @@
 """``lampcalc plot``: one figure of the lamps (locus, spectrum, efficacy, hue)."""
 
 import sys
+from pathlib import Path
 
 import click
 
 from .common import (
+    Failure,
     collect_files,
     fail_on_input_errors,
     rate_batches,
     read_some,
     spectrum_options,
 )
+from .outputs import writable
 
 
 @click.command()
@@ -33,7 +36,11 @@ def plot(kind, paths, out, lamps, diagram, zoom, duv_span, nominal, recursive, *
     from ..plots.figures import FIGURES
     from ..plots.style import figure_style, save_figure
 
-    batches, errors = read_some(collect_files(paths, recursive), **reading)
+    files = collect_files(paths, recursive)
+    if Path(out).resolve() in {f.resolve() for f in files}:
+        raise Failure(f"{out}: is one of the input files; choose another name for -o")
+    writable(out, "-o")
+    batches, errors = read_some(files, **reading)
     ratings = rate_batches(batches)
     options = {"locus": {"space": diagram, "zoom": zoom, "duv_span": duv_span, "nominal_cct_K": nominal}}.get(kind, {})
     if kind in ("spectrum", "hue") and len(lamps) != 1 and len(ratings) > 1:

@@ -1,6 +1,6 @@
 """The tables the commands print: ratings and claim verdicts, with their notes."""
 
-from ..rating.flags import doubtful_keys
+from ..rating.flags import doubtful_keys, explain
 from .common import flagged, fmt
 
 
@@ -16,13 +16,13 @@ def rating_table(ratings):
                 r["name"],
                 fmt(r["cct_K"], ".0f"),
                 fmt(r["duv"], "+.4f"),
-                fmt(r["ansi_nominal_cct_K"], ".0f"),
-                fmt(r["sdcm_steps"], ".1f"),
+                flagged(r["ansi_nominal_cct_K"], ".0f", "ansi_nominal_cct_K" in doubt),
+                flagged(r["sdcm_steps"], ".1f", "sdcm_steps" in doubt),
                 flagged(r["ra"], ".1f", "ra" in doubt),
                 flagged(r9, ".1f", "ri" in doubt),
                 flagged(r["rf"], ".1f", "rf" in doubt),
                 flagged(r["rg"], ".1f", "rg" in doubt),
-                fmt(r["ler_lm_per_W"], ".1f"),
+                flagged(r["ler_lm_per_W"], ".1f", "ler_lm_per_W" in doubt),
                 fmt(r["efficacy_lm_per_W"], ".1f"),
                 fmt(r["sp_ratio"], ".2f"),
                 fmt(r["melanopic_der"], ".3f"),
@@ -34,17 +34,25 @@ def rating_table(ratings):
 
 
 TABLE_NOTES = (
-    "ANSI: the ANSI C78.377-2017 nominal CCT category the lamp is in; steps: IEC 60081 ellipse steps from the\n"
-    "centre of the claimed nominal CCT, else of the nearest category. LER: efficacy of the radiation over the\n"
-    "measured part of 360-830 nm; lamp lm/W: lamp efficacy (needs W/nm and the electrical power).\n"
-    "Ra, R9: CIE 13.3-1995, unrounded. Rf, Rg: CIE 224:2017 / ANSI/IES TM-30-18. "
-    "(values): computed outside the method's validity; '-': not computable."
+    "ANSI: the ANSI C78.377-2017 nominal CCT category the lamp is in; steps: colour-consistency steps (with the\n"
+    "ellipse set named in the output files) from the centre of the claimed nominal CCT, else of the nearest\n"
+    "category. LER: efficacy of the radiation over the measured part of 360-830 nm; lamp lm/W: lamp efficacy\n"
+    "(needs W/nm and the electrical power). Ra, R9: CIE 13.3-1995, unrounded. Rf, Rg: CIE 224:2017 /\n"
+    "ANSI/IES TM-30-18. (values): computed outside the method's validity or with values not confirmed from a\n"
+    "published source (see the flags); '-': not computable."
 )
+
+
+def flag_legend(ratings):
+    """The words of every flag the lamps carry, one per line (empty when none)."""
+    raised = sorted({flag for flags in ratings["flags"] for flag in flags})
+    return "\n".join(f"  {flag}: {explain(flag)}" for flag in raised)
 
 
 CRITERIA = {
     # criterion: (label, claimed format, value format, unit)
     "ansi_quadrangle": ("ANSI quadrangle", "{:g} K", "{:.0f} K", "e-3 uv"),
+    "bin": ("bin", "{:g} K", "{:.0f} K", "e-3 uv"),
     "ansi_cct_K": ("ANSI target CCT", "{:g} K", "{:.0f} K", "K"),
     "ansi_duv": ("ANSI target Duv", "{:+.4f}", "{:+.4f}", ""),
     "sdcm_steps": ("colour consistency", "<= {:g} steps", "{:.2f} steps", "steps"),
@@ -55,6 +63,7 @@ CRITERIA = {
     "rg_max": ("Rg", "<= {:g}", "{:.1f}", ""),
     "ler_lm_per_W": ("LER", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
     "efficacy_lm_per_W": ("lamp efficacy", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
+    "spectrum": ("spectrum", "{}", "{}", ""),
 }
 RESULT = {True: "holds", False: "FAILS", None: "not shown"}
 
@@ -74,11 +83,14 @@ def verdict_text(verdicts):
             margin = "-" if c["margin"] is None or not math.isfinite(c["margin"]) else f"{c['margin']:+.4g} {unit}".strip()
             rows.append([label, claimed, measured, margin, RESULT[c["pass"]], c["note"]])
         failing = sum(c["pass"] is not True for c in lamp["checks"])
-        head = f"{lamp['lamp']}: " + ("every claim holds" if lamp["pass"] else f"{failing} of {len(lamp['checks'])} checks do not hold")
+        if [c["criterion"] for c in lamp["checks"]] == ["spectrum"]:
+            head = f"{lamp['lamp']}: no spectrum among the files given; its claims are not checked"
+        else:
+            head = f"{lamp['lamp']}: " + ("every claim holds" if lamp["pass"] else f"{failing} of {len(lamp['checks'])} checks do not hold")
         table = format_table(["claim", "claimed", "measured", "margin", "result", "note"], rows, "lllrll")
         blocks.append(head + "\n" + "\n".join("  " + line for line in table.splitlines()))
     blocks.append(
         "margin: how far the measurement is on the right side of the claim (negative: it fails by that much);\n"
-        "for the ANSI quadrangle, the distance from its nearest edge in CIE 1960 u,v (x 1e-3)."
+        "for the ANSI quadrangle or a bin, the distance from its nearest edge in CIE 1960 u,v (x 1e-3)."
     )
     return "\n\n".join(blocks)

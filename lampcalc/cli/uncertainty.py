@@ -49,14 +49,20 @@ def rule_from_options(uncertainty, name, k):
     return DecisionRule(name or "simple", 2.0 if k is None else k)
 
 
-def rate_with_model(batches, model, interpolation, nominal=None, on_draws=None):
-    """Rate the batches (as read) with the model's uncertainty; a progress bar on a terminal."""
+def rate_with_model(batches, model, interpolation, nominal=None, sets=None, on_draws=None):
+    """Rate the batches (as read) with the model's uncertainty; a progress bar on a terminal.
+
+    ``nominal``: claimed nominal CCTs keyed by casefolded lamp name; ``sets``: (bin set, ellipse set).
+    """
     from ..rating.uncertainty import rate_with_uncertainty
 
     names = [name for b in batches for name in b.names]
+    bin_set, ellipse_set = sets or (None, None)
     options = {
         "interpolation": interpolation,
-        "nominal_cct_K": None if nominal is None else [nominal.get(name, math.nan) for name in names],
+        "nominal_cct_K": None if nominal is None else [nominal.get(name.casefold(), math.nan) for name in names],
+        "bin_set": bin_set,
+        "ellipse_set": ellipse_set,
         "on_draws": on_draws,
     }
     if sys.stderr.isatty():
@@ -133,6 +139,8 @@ def decision_text(verdicts, rule):
     blocks = [f"With measurement uncertainty; decision rule: {rule.describe()}"]
     seen = set()
     for lamp in verdicts.lamps:
+        if lamp["lamp"] in verdicts.missing:
+            continue  # no spectrum: said with the verdicts
         rows = []
         for c in lamp["checks"]:
             label, _, value_fmt, unit = CRITERIA[c["criterion"]]

@@ -2,8 +2,8 @@
 
 The input is a CSV file with a header row naming the coordinates as ``x,y`` (CIE 1931),
 ``u,v`` (CIE 1960) or ``u_prime,v_prime`` (CIE 1976); other columns are carried
-through. The output repeats each input row with ``cct_K``, ``duv`` and ``flag`` added
-(``docs/cct.md``). Files of any length stream through in chunks of rows.
+through. The output repeats each input row with ``cct_K``, ``duv``, ``ansi_nominal_cct_K``
+and ``flag`` added (``docs/cct.md``). Files of any length stream through in chunks of rows.
 """
 
 import contextlib
@@ -21,7 +21,7 @@ from .serialise import cell, plain
 #: Coordinate column pairs, in the order they are looked for, and the coordinate system
 #: they name (a key of :data:`lampcalc.colorimetry.locus.COORDINATE_SYSTEMS`).
 COORDINATE_COLUMNS = {("x", "y"): "xy", ("u", "v"): "uv", ("u_prime", "v_prime"): "upvp"}
-OUTPUT_COLUMNS = ("cct_K", "duv", "flag")
+OUTPUT_COLUMNS = ("cct_K", "duv", "ansi_nominal_cct_K", "flag")
 
 
 def _find_columns(header, path):
@@ -113,21 +113,24 @@ class RowWriter:
         self.count = 0
         self.header = None
 
-    def write(self, header, rows, cct, duv, flags):
+    def write(self, header, rows, cct, duv, nominal, flags):
+        """Write rows with their CCT, Duv, ANSI nominal CCT (NaN: in none) and flag text."""
         if self.header is None:
             self.header = list(header) + list(OUTPUT_COLUMNS)
             if self.csv:
                 self.csv.writerow(self.header)
             else:
                 self.handle.write("[")
-        cct, duv = [plain(v) for v in np.asarray(cct).tolist()], [plain(v) for v in np.asarray(duv).tolist()]
+        cct, duv, nominal = ([plain(v) for v in np.asarray(a).tolist()] for a in (cct, duv, nominal))
         if self.csv:
-            self.csv.writerows(row + [cell(c), cell(d), f] for row, c, d, f in zip(rows, cct, duv, flags))
+            self.csv.writerows(
+                row + [cell(c), cell(d), cell(n), f] for row, c, d, n, f in zip(rows, cct, duv, nominal, flags)
+            )
             self.count += len(rows)
             return
-        for row, c, d, f in zip(rows, cct, duv, flags):
+        for row, c, d, n, f in zip(rows, cct, duv, nominal, flags):
             record = dict(zip(header, row))
-            record.update(zip(OUTPUT_COLUMNS, (c, d, f)))
+            record.update(zip(OUTPUT_COLUMNS, (c, d, n, f)))
             self.handle.write(("," if self.count else "") + "\n " + json.dumps(record))
             self.count += 1
 

@@ -1,81 +1,63 @@
 """Checks every spectrum reader applies, and the batch they build.
 
 Wavelengths must increase and lie in the optical range (micrometres are recognised and
-refused unless declared); a spectrum may not be zero or clearly negative (noise down to
-0.5 % of the peak is clipped and flagged); lamp names must be unique in a file. Every
-problem is one :class:`~lampcalc.errors.InputError` naming the file, the line (1-based,
-as an editor counts) and the column.
+refused unless declared); a spectrum needs two wavelengths at least, may not be zero or
+clearly negative (noise down to 0.5 % of the peak is clipped and flagged); lamp names must
+be unique in a file. Every problem is one :class:`~lampcalc.errors.InputError` naming the
+file by its path as given, the place in it (line and column, sheet and cell, or JSON path)
+and what is wrong.
 """
 
 import re
-from pathlib import Path
 
 import numpy as np
 
 from ..errors import InputError
 from ..spectra.batch import SpectralBatch
+from .text_cells import show
 
 #: Negative values down to this fraction of the peak are taken as noise and clipped.
 NEGATIVE_NOISE_LIMIT = 0.005
 WAVELENGTH_UNITS = ("nm", "um")
 
-_MICRO = re.compile(r"(µm|μm|\bum\b|micro)", re.IGNORECASE)
+_MICRO = re.compile(r"µm|μm|\bum\b|micro", re.IGNORECASE)
 
 
 class Where:
-    """Formats locations in one file for error messages."""
+    """Makes the one-line :class:`InputError` of a file: its path as given, the place, the problem."""
 
     def __init__(self, path):
         self.path = str(path)
 
-    def __call__(self, message, line=None, column=None, name=None):
-        where = [self.path]
-        if line is not None:
-            where.append(f"line {line}")
-        if column is not None:
-            where.append(f"column {column}" + (f" ({name!r})" if name else ""))
-        return InputError(f"{', '.join(where)}: {message}")
+    def __call__(self, message, at=None, name=None):
+        place = f", {at}" if at else ""
+        label = f" ({show(name)})" if name else ""
+        return InputError(f"{self.path}{place}{label}: {message}")
 
 
-def decode_text(raw, where):
-    """The text of a file's bytes: UTF-8 (with or without BOM), else Latin-1; binary files refused."""
-    if not raw.strip():
-        raise where("the file is empty")
-    if b"\x00" in raw[:8192]:
-        raise where("this is a binary file, not a text table of spectra")
-    try:
-        return raw.decode("utf-8-sig")
-    except UnicodeDecodeError:
-        text = raw.decode("latin-1")
-    control = sum(ch < " " and ch not in "\t\r\n\f" for ch in text[:8192])
-    if control > 8:
-        raise where("this is a binary file, not a text table of spectra")
-    return text
+def check_wavelengths(wl, places, where):
+    """Refuse fewer than two wavelengths, and wavelengths that repeat or decrease.
 
-
-def check_wavelengths(wl, lines, where):
-    """Refuse wavelengths that repeat or decrease, naming the line of the first one."""
+    ``places[i]`` names where wavelength ``i`` stands (``"line 12, column 1"``).
+    """
+    if wl.size < 2:
+        raise where("a spectrum needs at least two wavelengths", places[0] if len(places) else None)
     steps = np.diff(wl)
-    bad = np.flatnonzero(steps <= 0)
+    bad = np.flatnonzero(~(steps > 0))
     if bad.size:
         i = int(bad[0]) + 1
         if steps[i - 1] == 0:
-            raise where(f"duplicate wavelength {wl[i]:g} (also on line {lines[i - 1]})", lines[i], 1)
-        raise where(
-            f"wavelength {wl[i]:g} is below the previous one, {wl[i - 1]:g}; wavelengths must increase",
-            lines[i],
-            1,
-        )
+            raise where(f"duplicate wavelength {wl[i]:g} (also at {places[i - 1]})", places[i])
+        raise where(f"wavelength {wl[i]:g} is below the previous one, {wl[i - 1]:g}; wavelengths must increase", places[i])
 
 
 def to_nm(wl, unit, header_cell, where):
     """Wavelengths in nm from ``unit`` ("nm" or "um"); micrometres not declared as such are refused."""
     if unit == "um":
-        return wl * 1000.0
-    if unit != "nm":
-        raise where(f"unknown wavelength unit {unit!r}; use nm or um")
-    looks_micro = 0.1 <= wl[0] and wl[-1] <= 20.0
-    if looks_micro or (header_cell and _MICRO.search(header_cell)):
+        wl = wl * 1000.0
+    elif unit != "nm":
+        raise where(f"unknown wavelength unit {show(unit)}; use nm or um")
+    elif (0.1 <= wl[0] and wl[-1] <= 20.0) or (header_cell and _MICRO.search(header_cell[:100])):
         raise where(
             f"wavelengths run from {wl[0]:g} to {wl[-1]:g}: these look like micrometres; "
             "if they are, say so with --wavelength-unit um (or 'wavelength_unit: um' in the file)"
@@ -85,57 +67,72 @@ def to_nm(wl, unit, header_cell, where):
     return wl
 
 
-def check_values(values, wl_nm, names, columns, lines, where):
-    """Refuse all-zero and clearly negative spectra; clip negative noise."""
+def check_values(values, wl_nm, names, lamp_places, value_place, where):
+    """Refuse all-zero and clearly negative spectra; clip negative noise.
+
+    ``lamp_places[k]`` names lamp ``k``'s column (or row); ``value_place(k, i)`` its value at
+    wavelength ``i``.
+    """
     flags = []
     for k in range(values.shape[0]):
-        col, row = values[k], columns[k]
+        col = values[k]
         peak = float(col.max())
         if peak <= 0:
-            raise where("the spectrum is zero (or negative) everywhere", column=row, name=names[k])
+            raise where("the spectrum is zero (or negative) everywhere", lamp_places[k], names[k])
         low = int(col.argmin())
         if col[low] < -NEGATIVE_NOISE_LIMIT * peak:
             raise where(
-                f"value {col[low]:g} at {wl_nm[low]:g} nm is negative, {-100 * col[low] / peak:.2g} % of the "
+                f"value {col[low]:g} at {wl_nm[low]:g} nm is negative, {-100 * col[low] / peak:.3g} % of the "
                 f"peak; only noise below {100 * NEGATIVE_NOISE_LIMIT:g} % of the peak is clipped to zero",
-                lines[low],
-                row,
+                value_place(k, low),
                 names[k],
             )
         flags.append(("negative_noise_clipped",) if col[low] < 0 else ())
     return np.clip(values, 0.0, None), flags
 
 
-def build_batch(wl, values, names, quantity, watts, path, columns, lines, where, angles=None):
-    """Checks shared by both file forms, then the batch."""
-    values, flags = check_values(values, wl, names, columns, lines, where)
+def build_batch(wl, values, names, quantity, *, where, lamp_places, value_place, watts=None, angles=None, units=None):
+    """Checks every file form shares, then the batch.
+
+    Parameters
+    ----------
+    wl : ndarray, shape (n_wavelengths,)
+        Checked wavelengths, nm.
+    values : ndarray, shape (n_lamps, n_wavelengths)
+        Values already scaled to the units of ``quantity``.
+    names : tuple of str
+    quantity : str or tuple of str
+    where : Where
+    lamp_places : sequence of str
+        Where each lamp stands in the file (``"column 3"``, ``"sheet 'A', column C"``); with
+        the path as given, the lamp's ``source``.
+    value_place : callable
+        ``value_place(k, i)``: where lamp ``k``'s value at wavelength ``i`` stands.
+    watts, angles : ndarray, shape (n_lamps,), optional
+    units : sequence of str or None, optional
+        The unit each lamp's values were given in, recorded in its source.
+    """
+    bad = ~np.isfinite(values)
+    if bad.any():  # a finite number times a unit's scale can still leave the range of a float
+        k, i = (int(n) for n in np.argwhere(bad)[0])
+        raise where("is beyond the range of a float once scaled to SI units", value_place(k, i), names[k])
+    values, flags = check_values(values, wl, names, lamp_places, value_place, where)
     seen = {}
-    for name, column in zip(names, columns):
+    for name, place in zip(names, lamp_places):
         if name in seen:
-            raise where(f"lamp name {name!r} is used twice (also column {seen[name]})", column=column)
-        seen[name] = column
+            raise where(f"lamp name {show(name)} is used twice (also {seen[name]})", place)
+        seen[name] = place
+    units = units or [None] * len(names)
     return SpectralBatch(
         wavelength_nm=wl,
         values=values,
         names=names,
         quantity=quantity,
-        sources=tuple(f"{Path(path).name}, column {c}" for c in columns),
+        sources=tuple(f"{where.path}, {p}" + (f" (in {u})" if u else "") for p, u in zip(lamp_places, units)),
         electrical_W=watts,
         flags=flags,
         angle_deg=angles,
     )
-
-
-class JsonWhere:
-    """Locations in a JSON file: 'line' and 'column' become JSON paths."""
-
-    def __init__(self, where):
-        self.where = where
-
-    def __call__(self, message, line=None, column=None, name=None):
-        parts = [p for p in (column, line) if isinstance(p, str)]
-        label = f"{name!r}: " if name else ""
-        return self.where(f"{label}{' at '.join(parts) + ': ' if parts else ''}{message}")
 
 
 def single_quantity(batch):

@@ -1,9 +1,11 @@
 """Reading and writing spectrum files: the entry point for every form lampcalc reads.
 
-Delimited text (:mod:`~lampcalc.io.delimited_text`) and lampcalc's own JSON form
-(:mod:`~lampcalc.io.lampcalc_json`), both described in ``docs/spectrum-files.md``.
-Every problem raises :class:`~lampcalc.errors.InputError` with one line naming the file,
-the line (1-based, as an editor counts) and the column.
+Delimited text (:mod:`~lampcalc.io.delimited_text`), Excel workbooks
+(:mod:`~lampcalc.io.xlsx_spectra`), IES TM-27-14 documents (:mod:`~lampcalc.io.spdx`) and
+lampcalc's own JSON form (:mod:`~lampcalc.io.lampcalc_json`), all described in
+``docs/spectrum-files.md``. Every problem raises :class:`~lampcalc.errors.InputError` with
+one line naming the file by its path as given, the place in it and what is wrong; no other
+exception leaves :func:`read_spectra` on bad input.
 """
 
 from pathlib import Path
@@ -12,40 +14,59 @@ import numpy as np
 
 from .atomic import write_atomic
 from .delimited_text import read_spectra_text
+from .formats import JSON_SUFFIXES, SPDX_SUFFIXES, UNREAD_SPREADSHEETS, XLSX_SUFFIXES
 from .lampcalc_json import read_spectra_json, spectra_to_json
-from .spectrum_checks import Where, decode_text, single_quantity
+from .radiometric_units import unit_in_header
+from .spectrum_checks import Where, single_quantity
+from .text_cells import decode_text
 
 
 def read_spectra(path, *, wavelength_unit=None, quantity=None):
-    """Read a spectrum file: lampcalc JSON (``.json``) or delimited text (anything else).
+    """Read a spectrum file, by its suffix: ``.json``, ``.xlsx``, ``.spdx``/``.xml`` or delimited text.
 
     Parameters
     ----------
     path : str or Path
     wavelength_unit : {"nm", "um"}, optional
-        For text files whose wavelengths are in micrometres.
+        For tables whose wavelengths are in micrometres (text and workbooks).
     quantity : str, optional
         Radiometric quantity, overriding what the file says.
 
     Returns
     -------
     SpectralBatch
-        On the file's own wavelengths; call :meth:`SpectralBatch.on_grid` to compute.
+        On the file's own wavelengths; call :meth:`SpectralBatch.on_grid` to compute. Each
+        lamp's ``source`` is the path as given and its place in the file.
 
     Raises
     ------
     InputError
-        One line naming the file, line and column.
+        One line naming the file, the place in it and the problem.
     """
     where = Where(path)
+    suffix = Path(str(path)).suffix.lower()
+    if suffix in UNREAD_SPREADSHEETS:
+        raise where(f"{UNREAD_SPREADSHEETS[suffix]} is not read; save it as .xlsx or CSV")
     try:
+        if Path(path).exists() and not Path(path).is_dir() and not Path(path).is_file():
+            raise where("is not a regular file (a device or a pipe); not read")
         raw = Path(path).read_bytes()
     except IsADirectoryError:
         raise where("is a folder; pass -r to read the spectrum files inside it") from None
     except OSError as err:
         raise where(f"cannot be read ({err.strerror or err})") from None
+    if suffix in XLSX_SUFFIXES:
+        from .xlsx_spectra import read_spectra_xlsx
+
+        return read_spectra_xlsx(raw, path, wavelength_unit=wavelength_unit, quantity=quantity)
+    if suffix in SPDX_SUFFIXES:
+        from .spdx import read_spectra_spdx
+
+        if not raw.strip():
+            raise where("the file is empty")
+        return read_spectra_spdx(raw, path, quantity=quantity)
     text = decode_text(raw, where)
-    if str(path).lower().endswith(".json"):
+    if suffix in JSON_SUFFIXES:
         return read_spectra_json(text, path, quantity=quantity)
     return read_spectra_text(text, path, wavelength_unit=wavelength_unit, quantity=quantity)
 
@@ -62,8 +83,8 @@ def spectra_to_csv(batch):
             raise ValueError("angle_deg is known for some lamps only; the CSV form needs all or none")
         lines.append("# angle_deg: " + " ".join(repr(float(a)) for a in batch.angle_deg))
     for name in batch.names:
-        if any(ch in name for ch in ',"\n'):
-            raise ValueError(f"lamp name {name!r} cannot be written to CSV (comma, quote or newline)")
+        if any(ch in name for ch in ',"\n') or unit_in_header(name) != (name.strip(), None) or name != name.strip():
+            raise ValueError(f"lamp name {name!r} cannot be written to CSV (comma, quote, newline, or read as a unit)")
     lines.append(",".join(["wavelength_nm", *batch.names]))
     for wl, row in zip(batch.wavelength_nm, batch.values.T):
         lines.append(",".join([repr(float(wl)), *(repr(float(v)) for v in row)]))

@@ -1,4 +1,5 @@
-"""Figures for reports: chromaticity diagrams, spectra, blackbody efficacy, hue-bin graphics.
+"""Figures for reports: chromaticity diagrams, spectra, blackbody efficacy, hue-bin graphics,
+lots, colour over angle and comparisons.
 
 matplotlib is imported by these modules only, so nothing else in lampcalc pays for it.
 Every function draws into a matplotlib ``Axes`` it is given (or a new ``Figure`` from

@@ -16,16 +16,81 @@ FLAG_MEANINGS = {
     "duv_beyond_0.05": "CCT computed, but CIE 015 advises against using a CCT this far from the locus",
     "not_a_chromaticity": "the values are not a chromaticity, so CCT and Duv are null",
     "efficacy_needs_flux_spectrum": "electrical power given, but the spectrum is not in W/nm, so no lamp efficacy",
+    "efficacy_impossible_flux_exceeds_power": (
+        "the radiant flux exceeds the electrical power, which no lamp can do (a unit error such as mW/nm "
+        "read as W/nm, or a wrong power): no lamp efficacy, and efficacy claims are not evaluated"
+    ),
+    "ler_depends_on_range": (
+        "the spectrum carries 5 % or more of its peak at an end of the range LER is computed over "
+        "(ler_range_nm): LER would change with a wider range"
+    ),
     "cri_outside_validity": "DC > 5.4e-3: Ra and Ri computed outside CIE 13.3's validity",
-    "rendering_not_meaningful": "no CCT in range, hence no reference illuminant: Ra, Ri, Rf, Rg are null",
-    "steps_metric_outside_iec_range": "steps counted with the nearest IEC 60081 metric (nominal CCT outside 2700–6500 K)",
+    "rendering_not_meaningful": "no CCT, hence no reference illuminant: Ra, Ri, Rf, Rg are null",
+    "no_reference_above_25000K": (
+        "CCT above 25 000 K: CIE 13.3 and CIE 224 define no reference illuminant there (CIE daylight "
+        "ends at 25 000 K), so Ra, Ri, Rf, Rg are null"
+    ),
+    "tm30_hue_bin_empty": (
+        "a TM-30 hue bin holds none of the 99 samples under this reference (very low CCT): Rg and that "
+        "bin's values are null"
+    ),
+    "bin_corners_unconfirmed": (
+        "the quadrangle or bin the lamp is in, or within 1e-3 (u, v) of, has corners not read from a published "
+        "table (ANSI 2200 and 2500 K: built by the standard's construction); supply the published ones with --bins FILE"
+    ),
+    "steps_metric_outside_set_range": (
+        "steps counted with the metric of the ellipse set's nearest centre (nominal CCT outside the set's centres)"
+    ),
+    "steps_metric_unconfirmed": (
+        "the steps use metric values not confirmed from a published source (the shipped IEC 60081 Annex D "
+        "ellipses and CIE TN 001 circle radius); supply the published ones with --ellipses FILE"
+    ),
+    "purple_complementary_wavelength": (
+        "the chromaticity lies towards the purple line: no dominant wavelength; its complementary "
+        "wavelength is given instead"
+    ),
+    "at_equal_energy_point": "the chromaticity is the equal-energy point: no dominant wavelength (purity 0)",
+    "fwhm_at_range_end": "the highest peak stays above half its height up to an end of the measured range: no FWHM",
+    "fwhm_below_grid_resolution": (
+        "the highest peak is under 3 nm wide on the 1 nm computation grid, which cannot resolve it: "
+        "the line itself may be narrower than fwhm_nm"
+    ),
     "uncertainty_incomplete": "some Monte Carlo draws gave no value for a rating (e.g. no CCT): its uncertainty is null",
+    # Lots, angles and comparisons (lampcalc.verdicts): flags of a whole lot or pair.
+    "lot_too_small_for_sd": "fewer than 2 samples: no standard deviation and no pairwise Δu′v′",
+    "lot_too_small_for_ellipse": "fewer than 3 samples: no covariance ellipse",
+    "lot_not_white": "the lot's mean point has no CCT or lies beyond 0.05 in Duv, hence no centre: no colour-consistency steps",
+    "lot_doubtful_values": "some samples have values outside their method's validity; the statistics of the ratings in doubtful_ratings include them",
+    "lot_partial_values": "some samples lack some ratings; the statistics of the ratings in partial_ratings cover fewer samples than the lot",
+    "luminous_ratio_needs_absolute_spectra": "no luminous ratio: it needs both spectra absolute and in the same quantity",
 }
 
 #: Flag -> output keys whose values it makes doubtful (shown in parentheses, never as ordinary).
 DOUBTFUL_KEYS = {
     "cri_outside_validity": ("ra", "ri"),
     "duv_beyond_0.05": ("rf", "rg"),
+    "ler_depends_on_range": ("ler_lm_per_W",),
+    "bin_corners_unconfirmed": ("ansi_nominal_cct_K", "bin"),
+    "steps_metric_outside_set_range": ("sdcm_steps",),
+    "steps_metric_unconfirmed": ("sdcm_steps",),
+    "fwhm_below_grid_resolution": ("fwhm_nm",),
+}
+
+_RENDERING = ("ra", "ri", "cri_dc", "rf", "rg", "rf_hue_bins", "chroma_shift_hue_bins_percent", "hue_shift_hue_bins_rad")
+_NO_CCT = ("cct_K", "duv", "ansi_delta_cct_K", "ansi_delta_duv", "sdcm_centre_nominal_cct_K", "sdcm_steps") + _RENDERING
+#: Flag -> output keys it leaves null: every null value a rating can hold is explained by a flag.
+NULLED_KEYS = {
+    "cct_below_1000K": _NO_CCT,
+    "cct_above_100000K": _NO_CCT,
+    "not_a_chromaticity": _NO_CCT,
+    "rendering_not_meaningful": _RENDERING,
+    "no_reference_above_25000K": _RENDERING,
+    "tm30_hue_bin_empty": ("rg", "rf_hue_bins", "chroma_shift_hue_bins_percent", "hue_shift_hue_bins_rad"),
+    "efficacy_needs_flux_spectrum": ("efficacy_lm_per_W",),
+    "efficacy_impossible_flux_exceeds_power": ("efficacy_lm_per_W",),
+    "purple_complementary_wavelength": ("dominant_wavelength_nm",),
+    "at_equal_energy_point": ("dominant_wavelength_nm",),
+    "fwhm_at_range_end": ("fwhm_nm",),
 }
 
 

@@ -18,7 +18,13 @@ FIELDS = {
     "range_start_nm": "first measured wavelength, nm",
     "range_end_nm": "last measured wavelength, nm",
     "step_nm": "median measurement interval, nm",
+    "interpolation": "how the spectrum was brought onto the 1 nm grid: sprague, linear, integrated (finer data) or none (1 nm data)",
     "peak_nm": "wavelength of the spectrum's maximum on the 1 nm grid, nm",
+    "centroid_nm": "centroid wavelength, sum of wavelength x spectrum / sum of spectrum over the measured range, nm",
+    "fwhm_nm": "full width at half maximum of the highest peak, nm (null when it reaches an end of the measured range)",
+    "dominant_wavelength_nm": "CIE 015:2018 dominant wavelength against the equal-energy point, nm (null for purples)",
+    "complementary_wavelength_nm": "CIE 015:2018 complementary wavelength, for purple chromaticities only, nm",
+    "excitation_purity": "CIE 015:2018 excitation purity against the equal-energy point (0 to 1)",
     "x": "CIE 1931 chromaticity x",
     "y": "CIE 1931 chromaticity y",
     "u": "CIE 1960 UCS u",
@@ -41,8 +47,13 @@ FIELDS = {
     "ansi_margin_uv": "signed edge distance from that quadrangle in CIE 1960 u, v (positive inside)",
     "ansi_delta_cct_K": "CCT minus the nearest category's target CCT, K",
     "ansi_delta_duv": "Duv minus the nearest category's target Duv",
+    "bin_set": "name of the bin set of the bin keys (default: the ANSI C78.377-2017 quadrangles)",
+    "bin": "bin of that set holding the lamp (null if none)",
+    "bin_nearest": "bin of that set holding the lamp or nearest to it",
+    "bin_margin_uv": "signed edge distance from that bin in CIE 1960 u, v (positive inside)",
+    "sdcm_ellipse_set": "name of the ellipse set the steps are counted with (default: IEC 60081 Annex D)",
     "sdcm_centre_nominal_cct_K": "nominal CCT whose centre the steps are counted from (claimed, else nearest category), K",
-    "sdcm_steps": "colour-consistency steps (IEC 60081 ellipses) from that centre",
+    "sdcm_steps": "colour-consistency steps from that centre, with the metric of sdcm_ellipse_set",
     "ler_lm_per_W": "luminous efficacy of radiation over ler_range_nm, lm/W (not the lamp's efficacy)",
     "ler_range_nm": "[start, end] of the wavelengths LER is computed over, nm (list)",
     "luminous_flux_lm": "luminous flux, lm (spectra in W/nm only)",
@@ -50,7 +61,7 @@ FIELDS = {
     "luminance_cd_per_m2": "luminance, cd/m2 (spectra in W/(sr m2 nm) only)",
     "radiant_flux_W": "radiant flux over ler_range_nm, W (spectra in W/nm only)",
     "electrical_W": "electrical power from the input, W",
-    "efficacy_lm_per_W": "lamp luminous efficacy, luminous flux / electrical power, lm/W",
+    "efficacy_lm_per_W": "lamp luminous efficacy, luminous flux / electrical power, lm/W (null when impossible)",
     "sp_ratio": "scotopic/photopic ratio, 1700·ΣV'S / (683·ΣVS) over 380-780 nm",
     "s_cone_elr_mW_per_lm": "CIE S 026 s-cone-opic efficacy of luminous radiation, mW/lm",
     "m_cone_elr_mW_per_lm": "CIE S 026 m-cone-opic efficacy of luminous radiation, mW/lm",
@@ -71,7 +82,9 @@ class Ratings:
     """Ratings of a batch of lamps: columns of :data:`FIELDS`, one row per lamp.
 
     ``ratings[key]`` is the column (a NumPy array, or a tuple for strings and lists);
-    :meth:`records` gives one dict per lamp with JSON-ready values (NaN → None).
+    :meth:`records` gives one dict per lamp with JSON-ready values (NaN → None). Like a
+    DataFrame, ``"cct_K" in ratings`` and iteration go over the keys and ``len`` is the
+    number of lamps; :meth:`to_pandas` gives a DataFrame with list fields spread into columns.
     ``extras`` keeps what figures need but files do not: the spectra on the grid
     (``"batch"``) and the TM-30 bin means (``"ref_ab_bins"``, ``"test_ab_bins"``).
     """
@@ -86,9 +99,26 @@ class Ratings:
     def __len__(self):
         return len(self.columns["name"])
 
+    def __contains__(self, key):
+        return key in self.columns
+
+    def __iter__(self):
+        return iter(self.keys())
+
+    def keys(self):
+        """The output keys present (:meth:`output_keys`), then any other columns."""
+        ordered = self.output_keys()
+        return ordered + [k for k in self.columns if k not in set(ordered)]
+
     def output_keys(self):
-        """Output keys present, in :data:`FIELDS` order; a key's ``_u`` and ``_interval95`` follow it."""
+        """The keys of the JSON and CSV files, in :data:`FIELDS` order; a key's ``_u`` and ``_interval95`` follow it."""
         return [k for key in FIELDS for k in (key, f"{key}_u", f"{key}_interval95") if k in self.columns]
+
+    def to_pandas(self):
+        """A pandas DataFrame, one row per lamp; list fields spread into columns (pandas optional)."""
+        from .wide_columns import to_pandas
+
+        return to_pandas(self)
 
     def records(self):
         """One dict per lamp, keys in :meth:`output_keys` order, NaN as None."""

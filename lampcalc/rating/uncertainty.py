@@ -239,7 +239,7 @@ class MonteCarloDraws:
 
 
 def rate_with_uncertainty(spectra, model, *, observer="1931_2deg", interpolation=None, nominal_cct_K=None,
-                          on_draws=None, progress=None, chunk_spectra=CHUNK_SPECTRA):
+                          bin_set=None, ellipse_set=None, on_draws=None, progress=None, chunk_spectra=CHUNK_SPECTRA):
     """Rate every lamp, and give each numeric rating its measurement uncertainty.
 
     Parameters
@@ -247,7 +247,7 @@ def rate_with_uncertainty(spectra, model, *, observer="1931_2deg", interpolation
     spectra : SpectralBatch or sequence of SpectralBatch
         The spectra **as read**, on the files' own wavelengths: the draws perturb those samples.
     model : MeasurementModel
-    observer, nominal_cct_K
+    observer, nominal_cct_K, bin_set, ellipse_set
         As for :func:`~lampcalc.rating.rate.rate_spectra`.
     interpolation : str, optional
         The resampling onto the grid, as for ``rate_spectra``; by default that of
@@ -277,7 +277,8 @@ def rate_with_uncertainty(spectra, model, *, observer="1931_2deg", interpolation
     """
     batches = [spectra] if isinstance(spectra, SpectralBatch) else list(spectra)
     how = {} if interpolation is None else {"interpolation": interpolation}
-    ratings = rate_spectra(batches, observer=observer, nominal_cct_K=nominal_cct_K, **how)
+    sets = {"observer": observer, "bin_set": bin_set, "ellipse_set": ellipse_set}
+    ratings = rate_spectra(batches, nominal_cct_K=nominal_cct_K, **sets, **how)
     lamps = [b[j] for b in batches for j in range(b.n_lamps)]
     n, draws = len(lamps), model.draws
     nominal = np.full(n, np.nan) if nominal_cct_K is None else np.asarray(nominal_cct_K, dtype=float).reshape(n)
@@ -289,7 +290,7 @@ def rate_with_uncertainty(spectra, model, *, observer="1931_2deg", interpolation
              for lamp, start, stop in chunk]
         )
         centres = np.concatenate([np.full(stop - start, nominal[lamp]) for lamp, start, stop in chunk])
-        rated = rate_spectra(grid, observer=observer, nominal_cct_K=centres)
+        rated = rate_spectra(grid, nominal_cct_K=centres, **sets)
         row = 0
         for lamp, start, stop in chunk:
             part = _rows(rated, row, row + stop - start)

@@ -30,7 +30,8 @@ LAMPS_PER_SUMMARY_PAGE = 28
 
 METHODS = [
     ("Grid and sums", "CIE 015:2018: 360–830 nm at 1 nm; every weighted integral is Σ S(λ)·w(λ)·Δλ. Spectra are "
-     "resampled once by linear interpolation (no overshoot); zero outside the measured range, never extrapolated."),
+     "resampled once as CIE 015 and CIE 167 prescribe (Sprague for uniform data coarser than 1 nm, linear for "
+     "uneven data, finer data integrated; per lamp in the files); zero outside the measured range, never extrapolated."),
     ("Observer", "CIE 1931 2° for chromaticity, CCT, Duv and CIE 13.3; CIE 1964 10° for CIE 224 / TM-30-18."),
     ("CCT and Duv", "Exact nearest point of the Planckian locus (c2 = 1.4388e-2 m·K) in CIE 1960 (u, v); Duv is "
      "positive above the locus (towards green), as ANSI C78.377. No CCT outside 1000–100 000 K; flagged beyond "
@@ -43,8 +44,11 @@ METHODS = [
      "the lamp. Lamp efficacy = luminous flux of a spectrum in W/nm / electrical power."),
     ("Photoreceptors", "S/P with the CIE 1951 V′(λ) (K′m = 1700 lm/W); CIE S 026/E:2018 α-opic ELR and DER "
      "(D65), melanopic EDI for irradiance spectra."),
-    ("Categories and steps", f"{EDITION}, Table 1 quadrangles (flexible CCTs by the standard's formulas). "
-     "Colour-consistency steps with IEC 60081 Annex D ellipse metrics (reproduced from memory; see docs), "
+    ("Categories and steps", f"{EDITION}: Table 1 targets, the published corner table's quadrangles (2200 and 2500 K built by its "
+     "construction: flag bin_corners_unconfirmed); flexible CCTs: centre-line Duv only, no quadrangle or CCT "
+     "tolerance (not evaluated). "
+     "Colour-consistency steps with IEC 60081 Annex D ellipse metrics (not confirmed from the published text: "
+     "flag steps_metric_unconfirmed; supply them with --ellipses), "
      "from the centre of the claimed nominal CCT, else of the nearest category."),
 ]
 
@@ -105,7 +109,12 @@ def _summary_page(pdf, records, verdicts, page_lamps, title, page_no, n_pages):
     ax = fig.add_axes([0.06, 0.50, 0.88, 0.43])
     widths = [0.20, 0.07, 0.08, 0.06, 0.06, 0.06, 0.06, 0.06, 0.06, 0.06, 0.06, 0.07, 0.08]
     _table(ax, headers, _summary_rows(page_lamps, verdicts), widths, max_rows=LAMPS_PER_SUMMARY_PAGE)
-    flagged = [f"{r['name']}: {', '.join(r['flags'])}" for r in page_lamps if r["flags"]]
+    # Grouped by flag, so that a flag most lamps carry is written once.
+    by_flag = {}
+    for r in page_lamps:
+        for flag in r["flags"]:
+            by_flag.setdefault(flag, []).append(r["name"])
+    flagged = [f"{flag}: {'all lamps' if len(names) == len(page_lamps) else ', '.join(names)}" for flag, names in by_flag.items()]
     note = ("Flags — " + "; ".join(flagged)) if flagged else "No flags."
     fig.text(0.06, 0.485, note, fontsize=6.3, color=INK, wrap=True, va="top")
     fig.text(0.06, 0.455, "LER in lm/W over the measured part of 360–830 nm. Steps: IEC 60081 ellipse steps from the "

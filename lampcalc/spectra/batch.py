@@ -60,6 +60,9 @@ class SpectralBatch:
     angle_deg : array_like, shape (n_lamps,)
         Direction of emission each spectrum was measured at (a goniometer's angle), degrees;
         NaN where not known.
+    interpolation : sequence of str
+        How each spectrum was brought onto the grid (:func:`~lampcalc.spectra.resampling.method_for`):
+        set by :meth:`on_grid`; ``""`` before.
     """
 
     wavelength_nm: np.ndarray
@@ -72,6 +75,7 @@ class SpectralBatch:
     measured_range_nm: np.ndarray = None
     measured_step_nm: np.ndarray = None
     angle_deg: np.ndarray = None
+    interpolation: tuple = None
 
     def __post_init__(self):
         wl = np.asarray(self.wavelength_nm, dtype=float)
@@ -101,6 +105,7 @@ class SpectralBatch:
             if self.measured_step_nm is None
             else np.asarray(self.measured_step_nm, dtype=float).reshape(n)
         )
+        interpolation = ("",) * n if self.interpolation is None else _tuple(self.interpolation, n, "interpolation")
         angles = np.full(n, np.nan) if self.angle_deg is None else np.asarray(self.angle_deg, dtype=float)
         if angles.shape != (n,):
             raise ValueError(f"angle_deg must have shape ({n},), got {angles.shape}")
@@ -117,6 +122,7 @@ class SpectralBatch:
             ("measured_range_nm", ranges),
             ("measured_step_nm", steps),
             ("angle_deg", angles),
+            ("interpolation", interpolation),
         ):
             object.__setattr__(self, name, value)
 
@@ -130,23 +136,26 @@ class SpectralBatch:
         """Units of each lamp's :attr:`values`."""
         return tuple(QUANTITY_UNITS[q] for q in self.quantity)
 
-    def on_grid(self, method="linear"):
+    def on_grid(self, method="auto"):
         """This batch resampled onto the CIE 015:2018 grid (360–830 nm, 1 nm).
 
         Values outside each lamp's measured range are zero: never extrapolated. A lamp
         whose data do not cover 380–780 nm is flagged ``range_truncated``; one that does
-        not cover 400–700 nm is refused.
+        not cover 400–700 nm is refused. Each lamp records the method used in
+        :attr:`interpolation`.
 
         Parameters
         ----------
-        method : {"linear", "sprague"}
-            See :mod:`lampcalc.spectra.resampling`. Sprague values below zero (ringing at narrow
-            lines) are flagged ``interpolation_undershoot`` and kept.
+        method : {"auto", "linear", "sprague"}
+            See :mod:`lampcalc.spectra.resampling` (CIE 015:2018, clause 7.2; CIE 167:2005).
+            Sprague values below zero (ringing at narrow lines) are flagged
+            ``interpolation_undershoot`` and kept.
 
         Raises
         ------
         InputError
-            For a lamp that does not cover 400–700 nm.
+            For a lamp that does not cover 400–700 nm, or ``"sprague"`` asked for data
+            that are not uniformly spaced or have fewer than six points.
         """
         lo, hi = self.measured_range_nm[:, 0], self.measured_range_nm[:, 1]
         short = (lo > REQUIRED_RANGE_NM[0]) | (hi < REQUIRED_RANGE_NM[1])
@@ -156,16 +165,20 @@ class SpectralBatch:
                 f"{self._where(i)}: data cover {lo[i]:g}-{hi[i]:g} nm; at least "
                 f"{REQUIRED_RANGE_NM[0]:g}-{REQUIRED_RANGE_NM[1]:g} nm are needed"
             )
-        if np.array_equal(self.wavelength_nm, GRID_NM):
+        if np.array_equal(self.wavelength_nm, GRID_NM) and all(self.interpolation):
             return self
-        values = resample(self.wavelength_nm, self.values, method)
+        try:
+            values, used = resample(self.wavelength_nm, self.values, method)
+        except ValueError as err:
+            # The wavelengths are shared by every lamp of the batch (one file): name the file.
+            raise InputError(f"{self._where(0).split(', column')[0]}: {err}") from None
         truncated = (lo > FULL_RANGE_NM[0]) | (hi < FULL_RANGE_NM[1])
         undershoot = np.any(values < 0, axis=1)
         flags = tuple(
             f + (("range_truncated",) if t else ()) + (("interpolation_undershoot",) if u else ())
             for f, t, u in zip(self.flags, truncated, undershoot)
         )
-        return replace(self, wavelength_nm=GRID_NM, values=values, flags=flags)
+        return replace(self, wavelength_nm=GRID_NM, values=values, flags=flags, interpolation=(used,) * self.n_lamps)
 
     def with_electrical_power(self, watts):
         """This batch with ``watts`` as the electrical power of every lamp that has none."""
@@ -189,6 +202,7 @@ class SpectralBatch:
             measured_range_nm=self.measured_range_nm[idx],
             measured_step_nm=self.measured_step_nm[idx],
             angle_deg=self.angle_deg[idx],
+            interpolation=tuple(self.interpolation[i] for i in idx),
         )
 
     @classmethod
@@ -216,4 +230,5 @@ class SpectralBatch:
             measured_range_nm=np.concatenate([b.measured_range_nm for b in batches]),
             measured_step_nm=np.concatenate([b.measured_step_nm for b in batches]),
             angle_deg=np.concatenate([b.angle_deg for b in batches]),
+            interpolation=sum((b.interpolation for b in batches), ()),
         )

@@ -32,11 +32,13 @@ def test_cct_csv_file(run, write, tmp_path, columns):
     assert run("cct", path, "--csv", out_csv).exit_code == 0
     assert run("cct", path, "--json", out_json).exit_code == 0
     rows = [l.split(",") for l in out_csv.read_text().splitlines()]
-    assert rows[0] == ["id", *columns.split(","), "cct_K", "duv", "flag"]
+    assert rows[0] == ["id", *columns.split(","), "cct_K", "duv", "ansi_nominal_cct_K", "flag"]
     assert float(rows[1][3]) == pytest.approx(2700.0, rel=1e-9) and float(rows[2][4]) == pytest.approx(-0.002, abs=1e-12)
+    # Each point lies well inside its ANSI C78.377-2017 quadrangle (corner table, shared/REFERENCE_VALUES.md).
+    assert [float(r[5]) for r in rows[1:]] == [2700.0, 4000.0, 6500.0]
     records = json.loads(out_json.read_text())
     assert records[2]["id"] == "p2" and records[2]["cct_K"] == pytest.approx(6500.0, rel=1e-9)
-    assert records[2]["flag"] == ""
+    assert records[2]["flag"] == "" and records[2]["ansi_nominal_cct_K"] == 6500
 
 
 def test_cct_bad_rows_reported_rest_converted(run, write, tmp_path):
@@ -48,7 +50,7 @@ def test_cct_bad_rows_reported_rest_converted(run, write, tmp_path):
     assert "pts.csv, line 4: 1 fields where the header has 2" in result.stderr
     rows = out.read_text().splitlines()
     assert len(rows) == 6 and rows[1].split(",")[2].startswith("650")
-    assert rows[2].endswith(",,,not_a_chromaticity")
+    assert rows[2].endswith(",,,,not_a_chromaticity")
     assert rows[5].endswith("cct_below_1000K") or rows[5].endswith("cct_above_100000K")
 
 
@@ -72,3 +74,14 @@ def test_cct_large_file_streams(run, write, tmp_path):
     assert result.exit_code == 0
     back = np.loadtxt(out, delimiter=",", skiprows=1, usecols=(2, 3))
     np.testing.assert_allclose(back, pairs, rtol=1e-9, atol=1e-12)
+
+
+def test_cct_table_shows_the_ansi_category(run):
+    # shared/REFERENCE_VALUES.md: the published 4000 K centre (0.3818, 0.3797) is in the 4000 K quadrangle;
+    # (0.30, 0.40), far above the locus, is in none.
+    result = run("cct", "--xy", "0.3818", "0.3797", "--xy", "0.30", "0.40")
+    assert result.exit_code == 0
+    lines = result.stdout.splitlines()
+    assert lines[0].split()[-2:] == ["ANSI", "flag"]
+    assert lines[2].split()[-2:] == ["4000", "-"]
+    assert lines[3].split()[-2] == "-"

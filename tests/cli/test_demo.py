@@ -17,6 +17,17 @@ def test_demo_writes_results(run, tmp_path):
         absolute["luminous_flux_lm"] / 10.0
     )
     assert (out / "ratings.csv").read_text().startswith("name,source,")
+    # The lot, the downlight over angle and the sample against its data sheet (spectra_demo/ subfolders).
+    lot = json.loads((out / "lot.json").read_text())
+    assert lot["lot"]["n_samples"] == 12 and lot["claims"]["all_hold"] is False
+    angles = json.loads((out / "angles.json").read_text())["colour_over_angle"]
+    assert angles["n_angles"] == 9 and angles["limit_delta_uv_prime"] == 0.004
+    (pair,) = json.loads((out / "compare.json").read_text())["pairs"]
+    assert pair["reference_name"] == "QF-A60-2700-R9 data sheet" and pair["test_name"] == "QF-A60-2700-R9 sample 7"
+    for figure in ("lot/lot_locus.png", "lot/lot_histograms.png", "angles/colour_over_angle.png", "compare_datasheet.png"):
+        assert (out / figure).stat().st_size > 20_000, figure
+    # Rated alone, the top folder is what it was: the subfolders are not part of the first demo rating.
+    assert len(records) == 9
     # One lamp's verdicts with the fictional laboratory's measurement uncertainty (ILAC-G8 guarded acceptance).
     assert "How sure is the verdict? QF-A60-3000" in result.stdout and "decision rule: guarded acceptance" in result.stdout
     judged = json.loads((out / "checks_uncertainty.json").read_text())

@@ -35,6 +35,19 @@ def test_rate_writes_uncertainty_keys_and_shows_intervals(run, files, tmp_path):
     assert "lamp lm/W" not in result.stdout.split("Measurement uncertainty")[1]  # no absolute spectra: column left out
 
 
+def test_check_workbook_spreads_the_intervals(run, files, tmp_path):
+    from openpyxl import load_workbook
+
+    spectra, model, claims = files
+    out = tmp_path / "c.xlsx"
+    assert run("check", spectra, "--claims", claims, "--uncertainty", model, "--xlsx", out).exit_code == 1
+    book = load_workbook(out, read_only=True)
+    ratings_header = next(book["ratings"].iter_rows(max_row=1, values_only=True))
+    checks_header = next(book["checks"].iter_rows(max_row=1, values_only=True))
+    assert "cct_K_interval95_low" in ratings_header and "r9_u" in ratings_header
+    assert checks_header[-3:] == ("decision_rule", "guard_band", "decision") and "margin_interval95_high" in checks_header
+
+
 def test_rate_without_model_is_unchanged(run, files, tmp_path):
     spectra, _, _ = files
     out = tmp_path / "r.json"

@@ -16,10 +16,11 @@ GOOD_ROWS = "\n".join(f"{w},{1 + w / 1000:.4f},{2 - w / 1000:.4f}" for w in rang
 
 
 def test_comma_with_header(write):
-    batch = read_spectra(write("a.csv", "wavelength,Lamp A,Lamp B\n" + GOOD_ROWS))
+    path = write("a.csv", "wavelength,Lamp A,Lamp B\n" + GOOD_ROWS)
+    batch = read_spectra(path)
     assert batch.names == ("Lamp A", "Lamp B")
     assert batch.values.shape == (2, 81)
-    assert batch.sources == ("a.csv, column 2", "a.csv, column 3")
+    assert batch.sources == (f"{path}, column 2", f"{path}, column 3")
     assert batch.quantity == ("relative", "relative")
     assert batch.values[0, 0] == pytest.approx(1.38)
 
@@ -120,10 +121,11 @@ def _json_doc(**changes):
 
 
 def test_json_form(write):
-    batch = read_spectra(write("s.json", _json_doc()))
+    path = write("s.json", _json_doc())
+    batch = read_spectra(path)
     assert batch.names == ("L",) and batch.quantity == ("flux",)
     np.testing.assert_array_equal(batch.electrical_W, [5.0])
-    assert batch.sources == ("s.json, column lamps[0]",)
+    assert batch.sources == (f"{path}, lamps[0]",)
 
 
 @pytest.mark.parametrize(
@@ -132,13 +134,13 @@ def test_json_form(write):
         ("{not json", "not valid JSON"),
         (json.dumps({"x": 1}), "not a lampcalc spectra file"),
         (_json_doc(wavelength_nm=[380, 380, 780]), "wavelength_nm[1]: duplicate wavelength 380"),
-        (_json_doc(lamps=[{"name": "L", "values": [1, "a", 1]}]), "lamps[0].values[1] is 'a'"),
-        (_json_doc(lamps=[{"name": "L", "values": [1, 1]}]), "lamps[0].values has 2 numbers for 3 wavelengths"),
-        (_json_doc(lamps=[{"name": "L", "values": [1, 1, 1], "electrical_W": 0}]), "electrical_W must be a positive"),
+        (_json_doc(lamps=[{"name": "L", "values": [1, "a", 1]}]), "lamps[0].values[1]: is 'a', not a number"),
+        (_json_doc(lamps=[{"name": "L", "values": [1, 1]}]), "lamps[0].values: has 2 numbers for 3 wavelengths"),
+        (_json_doc(lamps=[{"name": "L", "values": [1, 1, 1], "electrical_W": 0}]), "lamps[0].electrical_W: must be a positive number of watts, not 0"),
         (_json_doc(quantity="lux"), "unknown quantity 'lux'"),
         ('{"lampcalc_spectra": 1, "wavelength_nm": [380, 780], "lamps": [{"name": "L", "values": [1, NaN]}]}',
-         "lamps[0].values[1] is not finite"),
-        (_json_doc(lamps=[{"name": "L", "values": [1, -1, 1]}]), "'L': lamps[0] at wavelength_nm[1]: value -1"),
+         "lamps[0].values[1]: is not finite"),
+        (_json_doc(lamps=[{"name": "L", "values": [1, -1, 1]}]), "lamps[0].values[1] ('L'): value -1 at 580 nm is negative, 100 % of the peak"),
     ],
 )
 def test_json_bad_input(write, doc, fragment):

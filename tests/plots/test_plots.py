@@ -8,7 +8,8 @@ from lampcalc.colorimetry.tristimulus import xy_to_upvp, xy_to_uv
 from lampcalc.colorimetry.locus import cct_duv_to_uv, planckian_uv
 from lampcalc.plots import draw_chromaticity_diagram, figure_style, new_figure, save_figure
 from lampcalc.plots.diagram import ellipse_xy
-from lampcalc.standards.steps import IEC_60081_ELLIPSES, ellipse_steps
+from lampcalc.standards.ellipse_sets import shipped_ellipse_set
+from lampcalc.standards.steps import ellipse_steps
 
 LAMPS = [("A", (0.4578, 0.4101)), ("B", (0.3805, 0.3768)), ("C", (0.3127, 0.3290))]
 
@@ -73,7 +74,8 @@ def test_isotemperature_lines_perpendicular_in_uv():
 
 def test_ellipses_are_n_steps():
     # The drawn ellipses are the n-step contours of the IEC 60081 metric (from memory) around the centre.
-    centre, g = IEC_60081_ELLIPSES[4000]
+    iec = shipped_ellipse_set()
+    centre, g = iec.centre_xy(4000), iec.metric(4000)[0]
     for n in (1, 3, 7):
         ring = ellipse_xy(centre, g, n)
         np.testing.assert_allclose(ellipse_steps(ring, centre, g), n, rtol=1e-12)

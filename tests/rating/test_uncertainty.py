@@ -206,3 +206,9 @@ def test_output_keys_follow_their_rating_and_are_documented():
     for key in NOT_PROPAGATED:
         assert f"`{key}`" in doc, key
     assert r.extras["uncertainty"].xy.shape == (1, 100, 2)
+    # Spreadsheets: the _u columns follow their rating's, an interval is two columns (docs/output-fields.md).
+    from lampcalc.rating.wide_columns import wide_columns
+
+    wide = list(wide_columns(r))
+    assert wide[wide.index("cct_K"): wide.index("cct_K") + 4] == ["cct_K", "cct_K_u", "cct_K_interval95_low", "cct_K_interval95_high"]
+    assert wide.index("r15") + 1 == wide.index("r1_u") and wide.index("r15_u") + 1 == wide.index("r1_interval95_low")

@@ -135,7 +135,8 @@ def test_fl1_published_cri(library):
 
 def test_fl2_published_values():
     # colour-science (reference library) and shared/REFERENCE_VALUES.md: FL2 Ra 64.2337, Rf 70.12, Rg 86.42.
-    # Their Rf comes from the 5 nm computation; from the Sprague 1 nm spectrum it is 70.21 (measured).
+    # Their Rf comes from the 5 nm data by Sprague; this 1 nm spectrum is colour-science's linear
+    # interpolation, which gives 70.21 (measured; the default resampling is tested in test_resampling).
     values = _illuminant("FL2")
     cct = lo.xy_to_cct_duv(cm.XYZ_to_xy(cm.tristimulus(values)))[0]
     assert cct == pytest.approx(4224.48, abs=1.0)

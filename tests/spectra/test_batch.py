@@ -32,3 +32,16 @@ def test_angle_defaults_to_unknown_and_follows_each_lamp():
 def test_angle_shape_is_checked():
     with pytest.raises(ValueError, match="angle_deg must have shape"):
         _batch([3000.0, 4000.0], [0.0])
+
+
+def test_interpolation_recorded_per_lamp_through_joins_and_slices():
+    # resampling.method_for decides (CIE 015:2018 clause 7.2, CIE 167:2005); the batch keeps it per lamp.
+    fine = np.arange(380.0, 780.01, 0.5)
+    five = _batch([3000.0, 4000.0]).on_grid()
+    half = SpectralBatch(fine, spectral_radiance([5000.0], fine), names=["T5000h"]).on_grid()
+    assert five.interpolation == ("sprague", "sprague") and half.interpolation == ("integrated",)
+    joined = SpectralBatch.concatenate([five, half])
+    assert joined.interpolation == ("sprague", "sprague", "integrated")
+    assert joined[[2, 0]].interpolation == ("integrated", "sprague")
+    assert joined.on_grid("linear") is joined  # already on the grid: resampled once, never twice
+    assert _batch([3000.0]).interpolation == ("",)

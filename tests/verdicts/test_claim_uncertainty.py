@@ -1,9 +1,10 @@
-"""Claims with measurement uncertainty: margins over the draws, and the decision rules on real draws.
+"""Claims with measurement uncertainty: each check followed through the draws, and the decision rules on real draws.
 
-The margins over the draws are checked against lampcalc's own check_lamp, draw by draw (an internal
-consistency check: the two must never drift apart). The decisions follow ILAC-G8:09/2019 4.2.3 (see
-test_decision_rules.py); the share of draws beyond a margin of half a standard uncertainty is compared
-with the normal distribution, Φ(0.5) = 0.6915 (scipy.stats.norm, reference library).
+The margins over the draws come from lampcalc's own check_lamp, run on every draw with the ordinary
+check's options; here they are compared with the ratings' own uncertainties of the same draws (an
+internal consistency check). The decisions follow ILAC-G8:09/2019 4.2.3 (see test_decision_rules.py);
+the share of draws beyond a margin of half a standard uncertainty is compared with the normal
+distribution, Φ(0.5) = 0.6915 (scipy.stats.norm, reference library).
 """
 
 import json
@@ -15,8 +16,9 @@ from lampcalc.io.demo_data import demo_claims, demo_files
 from lampcalc.io.spectrum_files import read_spectra
 from lampcalc.rating.measurement_model import MeasurementModel
 from lampcalc.rating.uncertainty import rate_with_uncertainty
-from lampcalc.verdicts.claim_uncertainty import UNCERTAINTY_CHECK_KEYS, ClaimDraws, criterion_draws, judge_with_uncertainty
-from lampcalc.verdicts.claims import Claim, check_claims, check_lamp, read_claims
+from lampcalc.standards.ellipse_sets import shipped_ellipse_set
+from lampcalc.verdicts.claim_uncertainty import UNCERTAINTY_CHECK_KEYS, ClaimDraws, judge_with_uncertainty
+from lampcalc.verdicts.claims import Claim, check_claims, read_claims
 from lampcalc.verdicts.decision_rules import DecisionRule
 
 MODEL = MeasurementModel(noise_percent=1.0, scale_percent=2.0, wavelength_shift_nm=0.5, stray_light_percent=0.1,
@@ -28,27 +30,24 @@ def _demo_batches(*names):
     return [b[[i for i, n in enumerate(b.names) if n in names]] for b in batches if set(b.names) & set(names)]
 
 
-@pytest.mark.parametrize("method, centre", [("ellipse", "ansi"), ("circle", "iec")])
-def test_margins_over_the_draws_are_check_lamps_margins(method, centre):
-    # Between them the two demo lamps claim every criterion: ANSI quadrangle, CCT and Duv, steps, Ra, R9,
-    # Rf, Rg from below and above, LER and lamp efficacy.
+def test_checks_over_the_draws_use_the_ordinary_checks_options():
+    # The demo downlight claims nominal CCT, steps, Ra, R9, Rf, LER and lamp efficacy. With the CIE TN 001
+    # circles as the step metric, the steps margin over the draws is the ratings' steps over the same draws.
     claims = read_claims(demo_claims())
-    lamps = ("QF-DL-4000", "QF-VS-3500")
-    batches = _demo_batches(*lamps)
-    draws = {}
-    rate_with_uncertainty(batches, MODEL, nominal_cct_K=[claims[n].values["nominal_cct_K"] for n in lamps],
-                          on_draws=lambda i, d: draws.setdefault(d["name"][0], d))
-    criteria = set()
-    for name in lamps:
-        batched = criterion_draws(claims[name], draws[name], method, centre)
-        for row in (0, 37, 99):
-            for check in check_lamp(claims[name], draws[name], row, method, centre):
-                measured, margin = batched[check["criterion"]]
-                assert margin[row] == pytest.approx(check["margin"], rel=1e-12, abs=1e-12), check["criterion"]
-                assert measured[row] == pytest.approx(check["measured"], rel=1e-12), check["criterion"]
-                criteria.add(check["criterion"])
-    assert criteria == {"ansi_quadrangle", "ansi_cct_K", "ansi_duv", "sdcm_steps", "ra", "r9", "rf", "rg_min", "rg_max",
-                        "ler_lm_per_W", "efficacy_lm_per_W"}
+    lamp = "QF-DL-4000"
+    options = {"ellipse_set": shipped_ellipse_set("circle"), "sdcm_centre": "ansi", "bin_set": None}
+    collected = ClaimDraws({lamp.lower(): Claim(lamp.lower(), 2, claims[lamp].values)}, **options)  # names match without case
+    ratings = rate_with_uncertainty(_demo_batches(lamp), MODEL, nominal_cct_K=[claims[lamp].values["nominal_cct_K"]],
+                                    ellipse_set=options["ellipse_set"], on_draws=collected)
+    verdicts = judge_with_uncertainty(check_claims(claims, ratings, **options), collected, DecisionRule("guarded"))
+    checks = {c["criterion"]: c for c in verdicts.lamps[0]["checks"]}
+    assert set(checks) == {"ansi_quadrangle", "ansi_cct_K", "ansi_duv", "sdcm_steps", "ra", "r9", "rf", "ler_lm_per_W",
+                           "efficacy_lm_per_W"}
+    assert checks["sdcm_steps"]["margin_u"] == pytest.approx(ratings["sdcm_steps_u"][0], rel=1e-9)
+    assert checks["r9"]["margin_u"] == pytest.approx(ratings["ri_u"][0][8], rel=1e-9)
+    assert checks["ansi_quadrangle"]["measured_u"] == pytest.approx(ratings["cct_K_u"][0], rel=1e-9)
+    # Lamp efficacy = flux / 10 W: its uncertainty is the flux's over 10 W.
+    assert checks["efficacy_lm_per_W"]["measured_u"] == pytest.approx(ratings["luminous_flux_lm_u"][0] / 10.0, rel=1e-9)
 
 
 @pytest.fixture(scope="module")
@@ -116,23 +115,7 @@ def test_files_carry_the_new_keys(four_claims):
     assert list(check)[-len(UNCERTAINTY_CHECK_KEYS):] == list(UNCERTAINTY_CHECK_KEYS)
     assert "decision" in records[0] and "decision" not in json.loads(plain.to_json())[0]
     header = judged.to_csv().splitlines()[0].split(",")
-    assert header[:7] == plain.to_csv().splitlines()[0].split(",") and header[7:] == list(UNCERTAINTY_CHECK_KEYS)
+    spread = [c for k in UNCERTAINTY_CHECK_KEYS for c in ((f"{k}_low", f"{k}_high") if k.endswith("_interval95") else (k,))]
+    assert header[:7] == plain.to_csv().splitlines()[0].split(",") and header[7:] == spread
     row = next(r for r in judged.to_csv().splitlines()[1:] if r.startswith("in_band,ra,"))
     assert row.endswith(",conditional pass")
-
-
-def test_two_lamps_of_one_name_keep_their_own_draws():
-    # Two files may hold a lamp of the same name; each check must take its own lamp's draws.
-    from lampcalc.physics.blackbody import spectral_radiance
-    from lampcalc.spectra.batch import SpectralBatch
-
-    wl = np.arange(380.0, 781.0, 5.0)
-    batches = [SpectralBatch(wl, spectral_radiance(t, wl)[None], ("twin",)) for t in (2900.0, 3150.0)]
-    claims = {"twin": Claim("twin", 2, {"nominal_cct_K": 3000.0})}
-    collected = ClaimDraws(claims)
-    ratings = rate_with_uncertainty(batches, MODEL, nominal_cct_K=[3000.0, 3000.0], on_draws=collected)
-    judged = judge_with_uncertainty(check_claims(claims, ratings), collected, DecisionRule("guarded"))
-    for i, lamp in enumerate(judged.lamps):
-        check = next(c for c in lamp["checks"] if c["criterion"] == "ansi_quadrangle")
-        assert check["measured_u"] == pytest.approx(ratings["cct_K_u"][i], rel=1e-9)
-    assert ratings["cct_K_u"][0] != pytest.approx(ratings["cct_K_u"][1], rel=1e-3)

@@ -68,12 +68,16 @@ def test_every_claim_holds_exit_0(run, write):
 BAD_CLAIMS = {
     "no_lamp_column": ("name,min_ra\nQF-HAL-2900,90\n", "line 1: no 'lamp' column"),
     "unknown_column": ("lamp,min_cri\nQF-HAL-2900,90\n", "line 1: unknown column 'min_cri'"),
-    "malformed": (HEADER + "\nQF-HAL-2900,3000,,ninety,,,,,,,\n", "line 2, column 'min_ra': 'ninety' is not a non-negative number"),
-    "negative": (HEADER + "\nQF-HAL-2900,3000,,-5,,,,,,,\n", "line 2, column 'min_ra': '-5'"),
+    "malformed": (HEADER + "\nQF-HAL-2900,3000,,ninety,,,,,,,\n", "line 2, column 'min_ra': 'ninety' is not a number"),
+    # Steps and watts cannot be negative (common practice, no source); indices can (see below).
+    "negative_steps": (HEADER + "\nQF-HAL-2900,3000,-5,,,,,,,,\n", "line 2, column 'max_sdcm_steps': '-5' is not a valid"),
+    "zero_watts": (HEADER + "\nQF-HAL-2900,3000,,,,,,,,0,\n", "line 2, column 'electrical_W': '0' is not a valid"),
+    "beyond_float": (HEADER + "\nQF-HAL-2900,3000,,1e999,,,,,,,\n", "'1e999' is beyond the range of a float"),
+    "huge_cell": (HEADER + '\nQF-HAL-2900,"' + "9" * 200_000 + '",,,,,,,,,\n', "line 2: cannot be split into cells"),
+    "header_only": (HEADER + "\n", "line 1: has a header but no lamps"),
+    "claims_nothing": (HEADER + "\nQF-HAL-2900,,,,,,,,,,\n", "names lamps but claims nothing"),
     "duplicate": (HEADER + "\nQF-HAL-2900,3000,,,,,,,,,\n# note\nQF-HAL-2900,,,90,,,,,,,\n",
                   "line 4: lamp 'QF-HAL-2900' is claimed twice (also line 2)"),
-    "no_spectrum": (HEADER + "\nQF-HAL-2900,3000,,,,,,,,,\nQF-GHOST,3000,,,,,,,,,\n",
-                    "line 3: lamp 'QF-GHOST' has no spectrum among the files given"),
     "nominal_range": (HEADER + "\nQF-HAL-2900,1800,,,,,,,,,\n", "line 2, column 'nominal_cct_K'"),
     "ragged": (HEADER + "\nQF-HAL-2900,3000\n", "line 2: 2 fields where the header has 11"),
     "empty": ("# nothing\n", "the claims file is empty"),
@@ -96,3 +100,65 @@ def test_relative_spectrum_cannot_show_an_efficacy_claim(run, write):
     result = run("check", *demo_files(), "--claims", claims)
     assert result.exit_code == 1
     assert "cannot be checked: the spectrum is not in W/nm" in result.stdout
+
+
+def test_semicolons_decimal_commas_and_case(run, write, tmp_path):
+    # A continental export of the claims: semicolons, decimal commas, names in other case.
+    claims = write("c.csv", "Lamp;Nominal_CCT_K;min_ra;max_sdcm_steps\nqf-hal-2900;3000;95,5;7,5\n")
+    out = tmp_path / "v.json"
+    result = run("check", *demo_files(), "--claims", claims, "--json", out)
+    assert result.exit_code == 0, result.output
+    (entry,) = json.loads(out.read_text())
+    assert entry["lamp"] == "QF-HAL-2900"
+    assert {c["criterion"]: c["claimed"] for c in entry["checks"]}["ra"] == 95.5
+
+
+def test_negative_minimum_is_a_claim(run, write, tmp_path):
+    # CIE 13.3 special indices can be negative, so "R9 at least -10" is a valid claim (common practice, no source).
+    claims = write("c.csv", "lamp,min_r9\nQF-HAL-2900,-10\n")
+    out = tmp_path / "v.json"
+    assert run("check", *demo_files(), "--claims", claims, "--json", out).exit_code == 0
+    (entry,) = json.loads(out.read_text())
+    assert entry["checks"][0]["claimed"] == -10 and entry["checks"][0]["pass"] is True
+
+
+def test_unknown_lamp_suggests_and_the_others_are_checked(run, write, tmp_path):
+    claims = write("c.csv", HEADER + "\nQF-HAL-2900,3000,,95,,,,,,,\nQF-HAL-2090,3000,,,,,,,,,\n")
+    out = tmp_path / "v.json"
+    result = run("check", *demo_files(), "--claims", claims, "--json", out)
+    assert result.exit_code == 2
+    assert f"{claims}, line 3: no spectrum named 'QF-HAL-2090' among the files given; did you mean 'QF-HAL-2900'?" in result.stderr
+    verdicts = {v["lamp"]: v for v in json.loads(out.read_text())}
+    assert verdicts["QF-HAL-2900"]["pass"] is True
+    assert verdicts["QF-HAL-2090"]["checks"][0]["criterion"] == "spectrum"
+    assert verdicts["QF-HAL-2090"]["checks"][0]["pass"] is None
+    assert "claimed but no spectrum: QF-HAL-2090" in result.stdout
+    assert "QF-HAL-2090: no spectrum among the files given; its claims are not checked" in result.stdout
+
+
+def test_claim_matching_two_spectra_is_refused(run, write, tmp_path):
+    from lampcalc.io.demo_data import demo_files as files
+
+    halogen = next(f for f in files() if "halogen" in f.name)
+    twin = tmp_path / "twin.tsv"
+    twin.write_bytes(halogen.read_bytes())
+    claims = write("c.csv", "lamp,min_ra\nQF-HAL-2900,90\n")
+    result = run("check", halogen, twin, "--claims", claims)
+    assert result.exit_code == 2
+    assert "line 2: lamp 'QF-HAL-2900' matches more than one spectrum" in result.stderr
+    assert str(halogen) in result.stderr and str(twin) in result.stderr
+    other = write("d.csv", "lamp,min_ra\nQF-HAL-2900-X,90\n")
+    told = run("check", halogen, twin, "--claims", other)
+    assert "lamp name(s) belong to more than one spectrum: 'QF-HAL-2900'" in told.stderr
+
+
+def test_claims_file_in_the_spectra_folder_is_not_a_spectrum(run, tmp_path):
+    import shutil
+
+    for f in demo_files():
+        shutil.copy(f, tmp_path)
+    claims = tmp_path / "claims.csv"
+    claims.write_text(HEADER + "\nQF-HAL-2900,3000,,95,,,,,,,\n", encoding="utf-8")
+    result = run("check", "-r", tmp_path, "--claims", claims)
+    assert result.exit_code == 0, result.output
+    assert "claims.csv" not in result.stderr

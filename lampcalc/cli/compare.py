@@ -1,0 +1,93 @@
+"""``lampcalc compare``: a test spectrum (or set) beside a reference: colour shift and every rating's difference."""
+
+import sys
+from pathlib import Path
+
+import click
+
+from ..io.formats import SPECTRUM_SUFFIXES
+from ..report.caution import CAUTION
+from .common import Failure, collect_files, fail_on_input_errors, rate_batches, read_some, spectrum_options, write_text
+
+
+def _side(path, recursive, reading, what):
+    files = collect_files([path], recursive)
+    if not files:
+        raise Failure(f"{path}: no {what} spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
+    batches, errors = read_some(files, **reading)
+    return rate_batches(batches), errors
+
+
+def figure_paths(path, names):
+    """One figure file per pair: ``path`` itself for one pair, else ``<stem>_<test name><suffix>``."""
+    path = Path(path)
+    if len(names) == 1:
+        return [path]
+    safe = ["".join(ch if ch.isalnum() or ch in "-_." else "_" for ch in name) for name in names]
+    return [path.with_name(f"{path.stem}_{s}{path.suffix}") for s in safe]
+
+
+def write_comparison_figures(path, reference, test, comparison):
+    from ..plots.comparison import comparison_figure
+    from ..plots.style import figure_style, save_figure
+
+    pairs = comparison["pairs"]
+    with figure_style():
+        for k, out in enumerate(figure_paths(path, pairs["test_name"])):
+            save_figure(comparison_figure(reference, test, comparison, k), out)
+            click.echo(f"wrote {out}", err=True)
+
+
+def compare_and_write(reference_path, test_path, *, limit=None, json_out=None, csv_out=None, figure_out=None,
+                      recursive=False, **reading):
+    """Read and rate both sides, compare, print and write. Returns the exit status (0, 1 or 2)."""
+    import json
+
+    from ..io.serialise import csv_text, plain, records
+    from ..verdicts.comparison import compare_ratings
+    from .compare_printouts import pair_detail, pairs_table
+
+    reference, errors = _side(reference_path, recursive, reading, "reference")
+    test, more = _side(test_path, recursive, reading, "test")
+    errors += more
+    comparison = compare_ratings(reference, test, limit_delta_uv_prime=limit)
+    click.echo(pairs_table(comparison))
+    if len(comparison["pairs"]["test_name"]) == 1:
+        click.echo("\n" + pair_detail(comparison))
+    rows = records(comparison["pairs"])
+    if json_out:
+        doc = {"pairs": rows, **plain({k: v for k, v in comparison.items() if k != "pairs"})}
+        write_text(json_out, json.dumps(doc, indent=1, allow_nan=False) + "\n")
+        click.echo(f"wrote {json_out}", err=True)
+    if csv_out:
+        write_text(csv_out, csv_text(rows))
+        click.echo(f"wrote {csv_out}", err=True)
+    if figure_out:
+        write_comparison_figures(figure_out, reference, test, comparison)
+    click.echo("\n" + CAUTION)
+    if errors:
+        click.echo(f"lampcalc: {len(errors)} spectrum files could not be read", err=True)
+        return 2
+    return 1 if any(ok is False for ok in comparison["pairs"]["pass"]) else 0
+
+
+@click.command()
+@click.argument("reference", type=click.Path(exists=True))
+@click.argument("test", type=click.Path(exists=True))
+@click.option("--limit-delta-uv-prime", "limit", type=click.FloatRange(min=0), default=None, metavar="DUV",
+              help="Your limit on the colour shift Δu'v' between test and reference.")
+@click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write every pair to this JSON file.")
+@click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write one row per pair to this CSV file.")
+@click.option("--figure", "figure_out", type=click.Path(dir_okay=False),
+              help="Draw both spectra and their ratio (.png, .svg or .pdf; one file per pair).")
+@spectrum_options
+@fail_on_input_errors
+def compare(reference, test, limit, json_out, csv_out, figure_out, recursive, **reading):
+    """Compare TEST spectra with REFERENCE spectra: colour shift Δu'v' and every rating's difference.
+
+    REFERENCE and TEST are files (or, with -r, folders). One spectrum on each side is one
+    pair; otherwise lamps are paired by name. Exit status 0 when every pair is within the
+    limit (or no limit is given), 1 when one is not, 2 for bad input.
+    """
+    sys.exit(compare_and_write(reference, test, limit=limit, json_out=json_out, csv_out=csv_out,
+                               figure_out=figure_out, recursive=recursive, **reading))

@@ -1,0 +1,153 @@
+"""What ``lampcalc lot`` shows: the lot's colour, its ratings' statistics, colour over angle, lot claims."""
+
+from ..rating.flags import explain
+from ..verdicts.lot import DOUBT_SOURCE, LOT_RATINGS
+from ..verdicts.lot_claims import STEPS_NOTES
+from .common import flagged, fmt
+from .printouts import RESULT
+from .text_table import format_table
+
+#: Rating -> (label, unit, format) in the lot's and the comparison's tables.
+RATING_LABELS = {
+    "x": ("x", "", ".5f"),
+    "y": ("y", "", ".5f"),
+    "u_prime": ("u'", "", ".5f"),
+    "v_prime": ("v'", "", ".5f"),
+    "cct_K": ("CCT", "K", ".0f"),
+    "duv": ("Duv", "", "+.4f"),
+    "peak_nm": ("peak", "nm", ".0f"),
+    "ra": ("Ra", "", ".1f"),
+    "r9": ("R9", "", ".1f"),
+    "rf": ("Rf", "", ".1f"),
+    "rg": ("Rg", "", ".1f"),
+    "ler_lm_per_W": ("LER", "lm/W", ".1f"),
+    "luminous_flux_lm": ("luminous flux", "lm", ".1f"),
+    "radiant_flux_W": ("radiant flux", "W", ".4g"),
+    "illuminance_lx": ("illuminance", "lx", ".1f"),
+    "luminance_cd_per_m2": ("luminance", "cd/m2", ".1f"),
+    "efficacy_lm_per_W": ("lamp efficacy", "lm/W", ".1f"),
+    "sp_ratio": ("S/P", "", ".3f"),
+    "melanopic_der": ("mel-DER", "", ".3f"),
+    "melanopic_edi_lx": ("mel-EDI", "lx", ".1f"),
+    "sdcm_steps": ("steps from centre", "steps", ".2f"),
+}
+
+
+def is_doubtful(key, doubt):
+    """Whether a rating is doubtful, given the set of doubtful output keys (R9 follows ``ri``)."""
+    return DOUBT_SOURCE.get(key, key) in doubt
+
+
+def flag_lines(flags, lot=None):
+    """One line per flag with its words (and, for a lot, the ratings a flag concerns)."""
+    lists = {"lot_doubtful_values": "doubtful_ratings", "lot_partial_values": "partial_ratings"}
+    lines = []
+    for flag in flags:
+        which = f" ({', '.join(lot[lists[flag]])})" if lot is not None and flag in lists else ""
+        lines.append(f"  {flag}: {explain(flag)}{which}")
+    return "\n".join(lines)
+
+
+def lot_text(lot, over_angle=False):
+    """The lot's colour: mean point, centre and steps, ellipse, pairwise distance, ANSI categories."""
+    s = lot
+    names = s["samples"]["name"]
+    span = f"{names[0]} … {names[-1]}" if len(names) > 1 else names[0]
+    if over_angle:
+        head = f"{s['n_samples']} spectra of one source over angle, summarised as a lot ({span})"
+    else:
+        head = f"Lot of {s['n_samples']} sample{'s' if s['n_samples'] > 1 else ''} ({span})"
+    lines = [head]
+    rows = [
+        ["mean point", f"x {fmt(s['mean_x'], '.5f')}, y {fmt(s['mean_y'], '.5f')};  u' {fmt(s['mean_u_prime'], '.5f')}, "
+         f"v' {fmt(s['mean_v_prime'], '.5f')} (means of the samples');  CCT {fmt(s['mean_point_cct_K'], '.0f')} K, "
+         f"Duv {fmt(s['mean_point_duv'], '+.4f')}"],
+    ]
+    if s["steps_centre_chosen"] != "none":
+        method = ("IEC 60081 ellipses (metric not confirmed, see docs/claims.md)" if s["steps_method"] == "ellipse"
+                  else "CIE TN 001 u'v' circles (step not confirmed, see docs/claims.md)")
+        rows.append(["centre", f"{s['steps_centre_nominal_cct_K']:g} K ({s['steps_centre_chosen']}), "
+                     f"{s['steps_centre'].upper()} centre x {s['steps_centre_x']:.5f}, y {s['steps_centre_y']:.5f}; {method}"])
+        shares = "  ".join(f"{k}: {s[f'within_{k}_steps_percent']:.0f} %" for k in range(1, 8))
+        rows.append(["within n steps", shares])
+    rows.append(["95 % ellipse", _ellipse_text(s)])
+    if s["n_samples"] >= 2:
+        a, b = s["max_pairwise_samples"]
+        rows.append(["largest Δu'v'", f"{s['max_pairwise_delta_uv_prime']:.5f} between {a} and {b}; "
+                     f"{s['max_delta_uv_prime_from_mean']:.5f} from the mean point"])
+    bins = [f"{b:g} K: {c}" for b, c in zip(s["ansi_bins_nominal_cct_K"], s["ansi_bins_count"])]
+    if s["ansi_bins_none_count"]:
+        bins.append(f"none: {s['ansi_bins_none_count']}")
+    rows.append(["ANSI categories", ", ".join(bins) + " (ANSI C78.377-2017)"])
+    width = max(len(r[0]) for r in rows)
+    lines += [f"  {label.ljust(width)}  {text}" for label, text in rows]
+    if s["flags"]:
+        lines.append("flags:\n" + flag_lines(s["flags"], s))
+    return "\n".join(lines)
+
+
+def _ellipse_text(s):
+    if s["n_samples"] < 3:
+        return "- (needs 3 samples or more)"
+    text = (f"semi-axes {s['ellipse_semi_major_xy']:.5f} and {s['ellipse_semi_minor_xy']:.5f} in x, y, "
+            f"major axis at {s['ellipse_angle_deg']:.0f}°")
+    if s["steps_centre_chosen"] != "none":
+        text += (f"; {s['ellipse_min_steps_from_mean']:.2f}-{s['ellipse_max_steps_from_mean']:.2f} steps from the mean, "
+                 f"reaches {s['ellipse_max_steps_from_centre']:.2f} steps from the centre")
+    return text
+
+
+def statistics_table(lot):
+    """One row per rating with values: n, mean, sd, min, 5th and 95th percentile, max."""
+    rows = []
+    for key in LOT_RATINGS:
+        label, unit, spec = RATING_LABELS[key]
+        if not lot[f"{key}_n"]:
+            continue
+        doubt = key in lot["doubtful_ratings"]
+        sd_spec = spec.replace("+", "")
+        rows.append([label, unit, str(lot[f"{key}_n"]), flagged(lot[f"{key}_mean"], spec, doubt),
+                     flagged(lot[f"{key}_sd"], sd_spec, doubt),
+                     *(flagged(lot[f"{key}_{stat}"], spec, doubt) for stat in ("min", "p05", "p95", "max"))])
+    table = format_table(["rating", "unit", "n", "mean", "sd", "min", "p05", "p95", "max"], rows, "llrrrrrrr")
+    return table + (
+        "\nsd: sample standard deviation (n - 1); p05, p95: 5th and 95th percentiles (linear between samples);"
+        "\n(values): include samples outside the method's validity."
+    )
+
+
+def angle_text(angles):
+    """Colour over angle: one row per angle, then the largest Δu'v' and the verdict."""
+    a = angles
+    t = a["angles"]
+    weighting = "unweighted (relative spectra)" if a["angle_weighting"] == "none" else f"weighted by {a['angle_weighting']}"
+    rows = [[fmt(t["angle_deg"][k], "g"), t["name"][k], fmt(t["u_prime"][k], ".5f"), fmt(t["v_prime"][k], ".5f"),
+             fmt(t["cct_K"][k], ".0f"), fmt(t["duv"][k], "+.4f"), fmt(t["delta_uv_prime"][k], ".5f")]
+            for k in range(len(t["name"]))]
+    head = (f"Colour over angle: {a['n_angles']} spectra, {a['angle_min_deg']:g}-{a['angle_max_deg']:g}°; "
+            f"mean point u' {a['angle_mean_u_prime']:.5f}, v' {a['angle_mean_v_prime']:.5f}, {weighting}")
+    table = format_table(["angle °", "spectrum", "u'", "v'", "CCT K", "Duv", "Δu'v' from mean"], rows, "rlrrrrr")
+    last = f"largest Δu'v' from the mean point: {a['max_delta_uv_prime_over_angle']:.5f} at {a['angle_of_max_delta_uv_prime_deg']:g}°"
+    if a["limit_delta_uv_prime"] is not None:
+        last += (f"; your limit {a['limit_delta_uv_prime']:g}: {RESULT[a['angle_pass']]} "
+                 f"(margin {a['angle_margin_delta_uv_prime']:+.5f})")
+    else:
+        last += "; no limit given (--limit-delta-uv-prime), so no verdict"
+    return "\n".join([head, table, last])
+
+
+def lot_claims_text(verdicts):
+    """The lot claims' verdicts: one row per claim, with the supplier's words; the note on the metric once, below."""
+    rows, footnotes = [], set()
+    for c in verdicts.checks:
+        margin = "-" if c["margin"] is None else f"{c['margin']:+.4g}"
+        note = c["note"]
+        for text in STEPS_NOTES.values():
+            if text in note:
+                note, footnotes = note.replace(text, "(*)"), footnotes | {text}
+        rows.append([c["text"] or "-", c["claim"], fmt(c["measured"], ".4g"), margin, RESULT[c["pass"]], note])
+    head = "Lot claims" + (f" of {verdicts.product}" if verdicts.product else "")
+    table = format_table(["the supplier says", "claim", "measured", "margin", "result", "note"], rows, "llrrll")
+    lines = [f"{head}:", table, verdicts.summary()]
+    lines += [f"(*) {text[0].upper()}{text[1:]}." for text in sorted(footnotes)]
+    return "\n".join(lines)

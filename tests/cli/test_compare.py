@@ -1,0 +1,68 @@
+"""``lampcalc compare``: the demo sample against its data sheet, a file against itself, bad input.
+
+The expected numbers are the ones the two spectra's own ratings give (``lampcalc rate``), and
+Δu′v′ from colour-science's xy_to_Luv_uv of the rated x, y (reference library).
+"""
+
+import csv
+import json
+
+import numpy as np
+import pytest
+
+from lampcalc.io.demo_data import demo_folder
+
+SHEET = demo_folder() / "datasheet" / "quillfen_a60_2700_r9_datasheet.csv"
+SAMPLE = demo_folder() / "datasheet" / "quillfen_a60_2700_r9_sample.csv"
+
+
+def test_sample_against_its_data_sheet(run, tmp_path):
+    import colour
+
+    result = run("compare", SHEET, SAMPLE, "--limit-delta-uv-prime", "0.003", "--json", tmp_path / "c.json",
+                 "--csv", tmp_path / "c.csv", "--figure", tmp_path / "c.png")
+    rate = run("rate", SHEET, SAMPLE, "--json", tmp_path / "r.json")
+    ref, test = json.loads((tmp_path / "r.json").read_text())
+    (pair,) = json.loads((tmp_path / "c.json").read_text())["pairs"]
+    upvp = [colour.xy_to_Luv_uv(np.array([r["x"], r["y"]])) for r in (ref, test)]  # colour-science
+    assert pair["delta_uv_prime"] == pytest.approx(np.hypot(*(upvp[1] - upvp[0])), rel=1e-9)
+    assert pair["delta_cct_K"] == pytest.approx(test["cct_K"] - ref["cct_K"], rel=1e-12)
+    assert pair["delta_r9"] == pytest.approx(test["ri"][8] - ref["ri"][8], rel=1e-12)
+    assert pair["delta_ri"] == pytest.approx([t - r for t, r in zip(test["ri"], ref["ri"])])
+    assert pair["pass"] is (pair["delta_uv_prime"] <= 0.003)
+    assert result.exit_code == (0 if pair["pass"] else 1), result.output
+    assert pair["luminous_ratio"] is None and pair["flags"] == ["luminous_ratio_needs_absolute_spectra"]
+    assert rate.exit_code == 0
+    rows = list(csv.DictReader((tmp_path / "c.csv").read_text().splitlines()))
+    assert len(rows) == 1 and float(rows[0]["delta_uv_prime"]) == pair["delta_uv_prime"]
+    assert (tmp_path / "c.png").stat().st_size > 20_000
+    assert "QF-A60-2700-R9 data sheet (reference) and QF-A60-2700-R9 sample 7 (test)" in result.output
+
+
+def test_a_file_against_itself_is_within_any_limit(run, bb_table, write):
+    path = write("bb.csv", bb_table([2700.0, 4000.0]))
+    result = run("compare", path, path, "--limit-delta-uv-prime", "0")
+    assert result.exit_code == 0, result.output
+    assert result.output.count("0.00000") >= 2
+
+
+def test_sets_paired_by_name_and_a_figure_per_pair(run, bb_table, write, tmp_path):
+    ref = write("ref.csv", bb_table([2700.0, 3000.0, 4000.0]))
+    test = write("test.csv", bb_table([2700.0, 4000.0, 5000.0]))
+    result = run("compare", ref, test, "--figure", tmp_path / "pair.svg")
+    assert result.exit_code == 0, result.output
+    assert "no partner among the other spectra for these reference lamps: bb3000" in result.output
+    assert "test lamps: bb5000" in result.output
+    assert sorted(p.name for p in tmp_path.glob("pair_*.svg")) == ["pair_bb2700.svg", "pair_bb4000.svg"]
+
+
+def test_bad_input(run, bb_table, write):
+    ref = write("ref.csv", bb_table([2700.0, 3000.0]))
+    other = write("other.csv", bb_table([5000.0, 6500.0]))
+    result = run("compare", ref, other)
+    assert result.exit_code == 2 and "no lamp name is common" in result.stderr and "Traceback" not in result.output
+    broken = write("broken.csv", "nm,a\n380,1\n385,-5\n390,1\n")
+    result = run("compare", ref, broken)
+    assert result.exit_code == 2 and "broken.csv, line 3" in result.stderr
+    result = run("compare", ref, ref, "--limit-delta-uv-prime", "-1")
+    assert result.exit_code == 2
