@@ -9,7 +9,6 @@ distribution, Φ(0.5) = 0.6915 (scipy.stats.norm, reference library).
 
 import json
 
-import numpy as np
 import pytest
 
 from lampcalc.io.demo_data import demo_claims, demo_files
