@@ -91,6 +91,14 @@ _EXPORTS = {
     "check_lot_claims": "verdicts.lot_claims",
     "colour_over_angle": "verdicts.angles",
     "compare_ratings": "verdicts.comparison",
+    "MeasurementModel": "rating.measurement_model",
+    "read_measurement_model": "rating.measurement_model",
+    "rate_with_uncertainty": "rating.uncertainty",
+    "coverage_interval": "rating.uncertainty",
+    "slit_convolution": "rating.uncertainty",
+    "DecisionRule": "verdicts.decision_rules",
+    "ClaimDraws": "verdicts.claim_uncertainty",
+    "judge_with_uncertainty": "verdicts.claim_uncertainty",
     "write_report": "report.pdf",
 }
 

@@ -18,23 +18,31 @@ from .common import (
 )
 from .outputs import prepare_outputs, write_outputs
 from .printouts import TABLE_NOTES, flag_legend, rating_table
+from .uncertainty import load_model, rate_with_model, uncertainty_option, uncertainty_table
 
 
-def rate_and_write(files, *, outputs=None, sets=None, **reading):
+def rate_and_write(files, *, outputs=None, sets=None, uncertainty=None, **reading):
     """Read, rate, print and write; returns the number of files that failed.
 
     ``outputs``: from :func:`~lampcalc.cli.outputs.prepare_outputs`; ``sets``: (bin set,
-    ellipse set) from :func:`~lampcalc.cli.common.read_sets`; ``reading``: see read_files.
+    ellipse set) from :func:`~lampcalc.cli.common.read_sets`; ``uncertainty``: a
+    measurement-model file, giving every rating its uncertainty; ``reading``: see read_files.
     """
     from ..verdicts.claims import duplicate_names
 
-    batches, errors = read_files(files, **reading)
+    model = load_model(uncertainty)
+    batches, errors = read_files(files, as_read=model is not None, **reading)
     if batches:
-        ratings = rate_batches(batches, sets=sets)
+        if model is None:
+            ratings = rate_batches(batches, sets=sets)
+        else:
+            ratings = rate_with_model(batches, model, reading.get("interpolation"), sets=sets)
         click.echo(rating_table(ratings))
         click.echo(TABLE_NOTES)
         if legend := flag_legend(ratings):
             click.echo("Flags:\n" + legend)
+        if model is not None:
+            click.echo("\n" + uncertainty_table(ratings))
         write_outputs(ratings, None, outputs or {})
         click.echo(CAUTION)
         duplicates = duplicate_names(ratings)
@@ -55,9 +63,10 @@ def rate_and_write(files, *, outputs=None, sets=None, **reading):
               help="Write every rating to this Excel workbook (lists in columns of their own).")
 @click.option("--report", "report_out", type=click.Path(dir_okay=False), help="Write a PDF report of every lamp.")
 @set_options
+@uncertainty_option
 @spectrum_options
 @fail_on_input_errors
-def rate(paths, json_out, csv_out, xlsx_out, report_out, recursive, bins, ellipses, **reading):
+def rate(paths, json_out, csv_out, xlsx_out, report_out, recursive, bins, ellipses, uncertainty, **reading):
     """Rate every spectrum in the files (and with -r, folders) given.
 
     Text tables (one lamp per column or per row), Excel workbooks, IES TM-27-14 documents
@@ -69,6 +78,6 @@ def rate(paths, json_out, csv_out, xlsx_out, report_out, recursive, bins, ellips
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
     outputs = prepare_outputs(files, json=json_out, csv=csv_out, xlsx=xlsx_out, report=report_out)
-    failed = rate_and_write(files, outputs=outputs, sets=sets, **reading)
+    failed = rate_and_write(files, outputs=outputs, sets=sets, uncertainty=uncertainty, **reading)
     if failed:
         sys.exit(2)
