@@ -20,30 +20,50 @@ from .common import (
 )
 from .outputs import prepare_outputs, write_outputs
 from .printouts import TABLE_NOTES, flag_legend, rating_table, verdict_text
+from .uncertainty import (
+    decision_options,
+    decision_text,
+    load_model,
+    rate_with_model,
+    rule_from_options,
+    uncertainty_option,
+    uncertainty_table,
+)
 
 
-def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi", quiet_table=False,
-                    report_options=None, **reading):
+def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi", quiet_table=False, uncertainty=None,
+                    rule=None, lamps=None, report_options=None, **reading):
     """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2) and the ratings.
 
     ``sets``: (bin set, ellipse set) from :func:`~lampcalc.cli.common.read_sets`; the shipped
-    ones by default. Status 2 when a spectrum file could not be read or a claimed lamp has no
-    spectrum (the other lamps are still checked), 1 when a claim does not hold or cannot be
-    shown to.
+    ones by default. ``uncertainty``: a measurement-model file, and ``rule`` the DecisionRule
+    applied with it (simple acceptance by default). ``lamps``: check only these lamps' claims.
+    Status 2 when a spectrum file could not be read or a claimed lamp has no spectrum (the
+    other lamps are still checked), 1 when a claim does not hold or cannot be shown to.
     """
+    from ..verdicts.claim_uncertainty import ClaimDraws, judge_with_uncertainty
     from ..verdicts.claims import check_claims, duplicate_names, read_claims
+    from ..verdicts.decision_rules import DecisionRule
 
     bin_set, ellipse_set = sets or read_sets()
+    model = load_model(uncertainty)
     claims = read_claims(claims_path)
-    batches, errors = read_some(files, **reading)
+    if lamps is not None:
+        claims = {name: claim for name, claim in claims.items() if name in lamps}
+    batches, errors = read_some(files, as_read=model is not None, **reading)
     nominal = {}
     for claim in claims.values():
         if "nominal_cct_K" in claim.values:
             nominal[claim.lamp.casefold()] = claim.values["nominal_cct_K"]
-    ratings = rate_batches(batches, nominal, (bin_set, ellipse_set))
-    verdicts = check_claims(
-        claims, ratings, claims_path, ellipse_set=ellipse_set, sdcm_centre=centre, bin_set=bin_set
-    )
+    options = {"ellipse_set": ellipse_set, "sdcm_centre": centre, "bin_set": bin_set}
+    if model is None:
+        ratings = rate_batches(batches, nominal, (bin_set, ellipse_set))
+    else:
+        claim_draws = ClaimDraws(claims, **options)
+        ratings = rate_with_model(
+            batches, model, reading.get("interpolation"), nominal, (bin_set, ellipse_set), on_draws=claim_draws
+        )
+    verdicts = check_claims(claims, ratings, claims_path, **options)
     if not quiet_table:
         click.echo(rating_table(ratings))
         click.echo(TABLE_NOTES)
@@ -52,6 +72,10 @@ def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi
         click.echo()
     click.echo(verdict_text(verdicts, ratings))
     click.echo("\n" + verdicts.summary())
+    if model is not None:
+        rule = rule or DecisionRule()
+        verdicts = judge_with_uncertainty(verdicts, claim_draws, rule)
+        click.echo("\n" + uncertainty_table(ratings) + "\n\n" + decision_text(verdicts, rule))
     write_outputs(ratings, verdicts, outputs or {}, report_options)
     click.echo(CAUTION)
     duplicates = duplicate_names(ratings)
@@ -89,10 +113,12 @@ def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi
 )
 @report_options
 @set_options
+@uncertainty_option
+@decision_options
 @spectrum_options
 @fail_on_input_errors
 def check(paths, claims_path, json_out, csv_out, xlsx_out, report_out, steps, centre, report_info, paper, recursive,
-          bins, ellipses, **reading):
+          bins, ellipses, uncertainty, decision_rule, guard_band_k, **reading):
     """Check a supplier's claims against the spectra: one verdict per claim.
 
     Lamps are matched to claims by name, without regard to case; the claims file is never
@@ -100,12 +126,13 @@ def check(paths, claims_path, json_out, csv_out, xlsx_out, report_out, steps, ce
     cannot be shown to), 2 for bad input (also a claimed lamp with no spectrum).
     """
     info = read_report_options(report_out, report_info, paper)
+    rule = rule_from_options(uncertainty, decision_rule, guard_band_k)
     files = collect_files(paths, recursive, exclude=[claims_path])
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
     outputs = prepare_outputs([*files, claims_path], json=json_out, csv=csv_out, xlsx=xlsx_out, report=report_out)
     status, _ = check_and_write(
         files, claims_path, outputs=outputs, sets=read_sets(bins, ellipses, steps), centre=centre,
-        report_options={"report_info": info, "paper": paper}, **reading,
+        uncertainty=uncertainty, rule=rule, report_options={"report_info": info, "paper": paper}, **reading,
     )
     sys.exit(status)

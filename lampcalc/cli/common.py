@@ -108,10 +108,13 @@ def collect_files(paths, recursive, exclude=()):
     return files
 
 
-def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, interpolation="auto", watts=None):
+def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, interpolation="auto", watts=None,
+               as_read=False):
     """Read every file onto the grid; returns ``(batches, errors)``. ``strict`` stops at the first error.
 
-    ``watts`` is the electrical power of every lamp whose file does not give one.
+    ``watts`` is the electrical power of every lamp whose file does not give one. With ``as_read``
+    the batches keep the files' own wavelengths (checked against the grid all the same), for
+    ``--uncertainty``, whose draws perturb the samples before they are resampled.
     """
     from ..errors import InputError
     from ..io.spectrum_files import read_spectra
@@ -123,7 +126,8 @@ def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, inte
                 batch = read_spectra(f, wavelength_unit=wavelength_unit, quantity=quantity)
                 if watts is not None:
                     batch = batch.with_electrical_power(watts)
-                batches.append(batch.on_grid(interpolation))
+                gridded = batch.on_grid(interpolation)
+                batches.append(batch if as_read else gridded)
             except InputError as err:
                 if strict:
                     raise Failure(str(err)) from None

@@ -20,24 +20,32 @@ from .common import (
 )
 from .outputs import prepare_outputs, write_outputs
 from .printouts import TABLE_NOTES, flag_legend, rating_table
+from .uncertainty import load_model, rate_with_model, uncertainty_option, uncertainty_table
 
 
-def rate_and_write(files, *, outputs=None, sets=None, report_options=None, **reading):
+def rate_and_write(files, *, outputs=None, sets=None, uncertainty=None, report_options=None, **reading):
     """Read, rate, print and write; returns the number of files that failed.
 
     ``outputs``: from :func:`~lampcalc.cli.outputs.prepare_outputs`; ``sets``: (bin set,
-    ellipse set) from :func:`~lampcalc.cli.common.read_sets`; ``report_options``: the
+    ellipse set) from :func:`~lampcalc.cli.common.read_sets`; ``uncertainty``: a
+    measurement-model file, giving every rating its uncertainty; ``report_options``: the
     report's information and paper; ``reading``: see read_files.
     """
     from ..verdicts.claims import duplicate_names
 
-    batches, errors = read_files(files, **reading)
+    model = load_model(uncertainty)
+    batches, errors = read_files(files, as_read=model is not None, **reading)
     if batches:
-        ratings = rate_batches(batches, sets=sets)
+        if model is None:
+            ratings = rate_batches(batches, sets=sets)
+        else:
+            ratings = rate_with_model(batches, model, reading.get("interpolation"), sets=sets)
         click.echo(rating_table(ratings))
         click.echo(TABLE_NOTES)
         if legend := flag_legend(ratings):
             click.echo("Flags:\n" + legend)
+        if model is not None:
+            click.echo("\n" + uncertainty_table(ratings))
         write_outputs(ratings, None, outputs or {}, report_options)
         click.echo(CAUTION)
         duplicates = duplicate_names(ratings)
@@ -59,9 +67,10 @@ def rate_and_write(files, *, outputs=None, sets=None, report_options=None, **rea
 @click.option("--report", "report_out", type=click.Path(dir_okay=False), help="Write a PDF report of every lamp.")
 @report_options
 @set_options
+@uncertainty_option
 @spectrum_options
 @fail_on_input_errors
-def rate(paths, json_out, csv_out, xlsx_out, report_out, report_info, paper, recursive, bins, ellipses,
+def rate(paths, json_out, csv_out, xlsx_out, report_out, report_info, paper, recursive, bins, ellipses, uncertainty,
          **reading):
     """Rate every spectrum in the files (and with -r, folders) given.
 
@@ -75,7 +84,7 @@ def rate(paths, json_out, csv_out, xlsx_out, report_out, report_info, paper, rec
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
     outputs = prepare_outputs(files, json=json_out, csv=csv_out, xlsx=xlsx_out, report=report_out)
-    failed = rate_and_write(files, outputs=outputs, sets=sets, report_options={"report_info": info, "paper": paper},
-                            **reading)
+    failed = rate_and_write(files, outputs=outputs, sets=sets, uncertainty=uncertainty,
+                            report_options={"report_info": info, "paper": paper}, **reading)
     if failed:
         sys.exit(2)

@@ -38,3 +38,8 @@ def demo_set(name):
 def demo_lot_claims():
     """The fictional supplier's claims on its demo lot (TOML)."""
     return demo_folder() / "lot" / "lot_claims_quillfen.toml"
+
+
+def demo_measurement_model():
+    """The measurement model of the fictional supplier's quality-control spectrometer (TOML)."""
+    return demo_folder() / "quillfen_qc_lab_model.toml"

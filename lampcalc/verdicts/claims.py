@@ -301,6 +301,9 @@ def check_lamp(claim, ratings, i, ellipse_set=None, sdcm_centre="ansi", bin_set=
     return checks
 
 
+_CHECK_KEYS = ("criterion", "claimed", "measured", "margin", "pass", "note")
+
+
 @dataclass
 class Verdicts:
     """Results of checking a claims file against a batch's ratings."""
@@ -320,24 +323,36 @@ class Verdicts:
 
         return count_line(self)
 
+    def _extra_keys(self):
+        """Keys a layer on top (the measurement uncertainty) added to the checks, in order."""
+        keys = [k for lamp in self.lamps for c in lamp["checks"] for k in c if k not in _CHECK_KEYS]
+        return list(dict.fromkeys(keys))
+
     def to_json(self):
+        keys = _CHECK_KEYS + tuple(self._extra_keys())
         out = [
             {
                 "lamp": lamp["lamp"],
                 "pass": lamp["pass"],
-                "checks": [{k: plain(c[k]) for k in ("criterion", "claimed", "measured", "margin", "pass", "note")} for c in lamp["checks"]],
+                **({"decision": lamp["decision"]} if "decision" in lamp else {}),
+                "checks": [{k: plain(c.get(k)) for k in keys} for c in lamp["checks"]],
             }
             for lamp in self.lamps
         ]
         return json.dumps(out, indent=1, allow_nan=False) + "\n"
 
     def table(self):
-        """Header and rows of the verdicts, one row per check (numbers as floats, None when absent)."""
+        """Header and rows of the verdicts, one row per check (numbers as floats, None when absent).
+
+        Keys a layer on top added to the checks follow, an interval as two columns (``_low``, ``_high``).
+        """
+        extra = self._extra_keys()
         header = ["lamp", "criterion", "claimed", "measured", "margin", "pass", "note"]
+        header += [c for k in extra for c in ((f"{k}_low", f"{k}_high") if k.endswith("_interval95") else (k,))]
         result = {True: "pass", False: "fail", None: "cannot check"}
         rows = [
             [lamp["lamp"], c["criterion"], *(None if c[k] is None else float(c[k]) for k in ("claimed", "measured", "margin")),
-             result[c["pass"]], c["note"]]
+             result[c["pass"]], c["note"], *_extra_cells(c, extra)]
             for lamp in self.lamps
             for c in lamp["checks"]
         ]
@@ -350,6 +365,12 @@ class Verdicts:
         writer.writerow(header)
         writer.writerows([cell(v) for v in row] for row in rows)
         return buffer.getvalue()
+
+
+def _extra_cells(check, keys):
+    """The cells of the extra keys of one check: plain values, an interval as its two ends."""
+    values = [(key, plain(check.get(key))) for key in keys]
+    return [c for key, v in values for c in ((v or [None, None]) if key.endswith("_interval95") else [v])]
 
 
 def _suggestion(name, names):
