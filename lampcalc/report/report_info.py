@@ -15,12 +15,10 @@ lampcalc prints them as given: it invents no date and no number, so the same inp
 the same report. The file is read with the standard library's TOML reader (TOML 1.0).
 """
 
-import re
-import tomllib
 from dataclasses import dataclass, fields
-from pathlib import Path
 
 from ..errors import InputError
+from ..io.toml_files import key_line, read_toml
 
 #: Key -> what it is, in the order the report shows them.
 INFO_KEYS = {
@@ -61,16 +59,6 @@ class ReportInfo:
                 if f.name not in ("title", "notes") and getattr(self, f.name)]
 
 
-def _key_line(text, key):
-    """Line number (1-based) where ``key`` is set or opens a table, or None."""
-    quoted = rf"(?:{re.escape(key)}|\"{re.escape(key)}\"|'{re.escape(key)}')"
-    pattern = re.compile(rf"^\s*(?:\[\[?\s*{quoted}\s*[\].]|{quoted}\s*[=.])")
-    for number, line in enumerate(text.splitlines(), start=1):
-        if pattern.match(line):
-            return number
-    return None
-
-
 def report_info_from(values, where="report information", text=""):
     """A :class:`ReportInfo` from a mapping, refusing unknown keys and values that are not strings.
 
@@ -80,7 +68,7 @@ def report_info_from(values, where="report information", text=""):
         One line naming ``where`` and, when ``text`` (the file's text) shows it, the key's line.
     """
     def at(key):
-        line = _key_line(text, key) if text else None
+        line = key_line(text, key) if text else None
         return f"{where}, line {line}" if line else where
 
     for key, value in values.items():
@@ -101,7 +89,8 @@ def read_report_info(path):
     ------
     InputError
         For a file that cannot be read or is not TOML (with its line and column), an
-        unknown key or a value that is not a string (with the key's line).
+        unknown key or a value that is not a string (with the key's line); see
+        :mod:`lampcalc.io.toml_files`.
 
     Examples
     --------
@@ -111,17 +100,5 @@ def read_report_info(path):
     >>> read_report_info(folder / "info.toml").report_number
     'QF-7'
     """
-    path = Path(path)
-    try:
-        text = path.read_bytes().decode("utf-8")
-    except (OSError, UnicodeDecodeError) as err:
-        raise InputError(f"{path}: cannot be read as a UTF-8 text file ({getattr(err, 'strerror', None) or err})") from None
-    try:
-        values = tomllib.loads(text)
-    except tomllib.TOMLDecodeError as err:
-        message = str(err)
-        found = re.search(r"\(at line (\d+), column (\d+)\)", message)
-        reason = re.sub(r"\s*\(at (line \d+, column \d+|end of document)\)", "", message)
-        where = f"{path}, line {found[1]}, column {found[2]}" if found else str(path)
-        raise InputError(f"{where}: not a valid TOML file ({reason.lower()})") from None
+    values, text = read_toml(path)
     return report_info_from(values, str(path), text)
