@@ -99,7 +99,9 @@ _EXPORTS = {
     "DecisionRule": "verdicts.decision_rules",
     "ClaimDraws": "verdicts.claim_uncertainty",
     "judge_with_uncertainty": "verdicts.claim_uncertainty",
-    "write_report": "report.pdf",
+    "write_report": "report.document",
+    "read_report_info": "report.report_info",
+    "ReportInfo": "report.report_info",
 }
 
 __all__ = sorted(_EXPORTS)

@@ -11,8 +11,10 @@ from .common import (
     collect_files,
     fail_on_input_errors,
     rate_batches,
+    read_report_options,
     read_sets,
     read_some,
+    report_options,
     set_options,
     spectrum_options,
 )
@@ -30,7 +32,7 @@ from .uncertainty import (
 
 
 def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi", quiet_table=False, uncertainty=None,
-                    rule=None, lamps=None, **reading):
+                    rule=None, lamps=None, report_options=None, **reading):
     """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2) and the ratings.
 
     ``sets``: (bin set, ellipse set) from :func:`~lampcalc.cli.common.read_sets`; the shipped
@@ -68,13 +70,13 @@ def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi
         if legend := flag_legend(ratings):
             click.echo("Flags:\n" + legend)
         click.echo()
-    click.echo(verdict_text(verdicts))
+    click.echo(verdict_text(verdicts, ratings))
     click.echo("\n" + verdicts.summary())
     if model is not None:
         rule = rule or DecisionRule()
         verdicts = judge_with_uncertainty(verdicts, claim_draws, rule)
         click.echo("\n" + uncertainty_table(ratings) + "\n\n" + decision_text(verdicts, rule))
-    write_outputs(ratings, verdicts, outputs or {})
+    write_outputs(ratings, verdicts, outputs or {}, report_options)
     click.echo(CAUTION)
     duplicates = duplicate_names(ratings)
     if duplicates:
@@ -109,19 +111,21 @@ def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi
     "--centre", type=click.Choice(["ansi", "set"]), default="ansi", show_default=True,
     help="Centre of the steps: ANSI C78.377 target of the nominal CCT, or the ellipse set's own centre (IEC 60081's F2700...).",
 )
+@report_options
 @set_options
 @uncertainty_option
 @decision_options
 @spectrum_options
 @fail_on_input_errors
-def check(paths, claims_path, json_out, csv_out, xlsx_out, report_out, steps, centre, recursive, bins, ellipses,
-          uncertainty, decision_rule, guard_band_k, **reading):
+def check(paths, claims_path, json_out, csv_out, xlsx_out, report_out, steps, centre, report_info, paper, recursive,
+          bins, ellipses, uncertainty, decision_rule, guard_band_k, **reading):
     """Check a supplier's claims against the spectra: one verdict per claim.
 
     Lamps are matched to claims by name, without regard to case; the claims file is never
     read as a spectrum. Exit status 0 when every claim holds, 1 when any does not (or
     cannot be shown to), 2 for bad input (also a claimed lamp with no spectrum).
     """
+    info = read_report_options(report_out, report_info, paper)
     rule = rule_from_options(uncertainty, decision_rule, guard_band_k)
     files = collect_files(paths, recursive, exclude=[claims_path])
     if not files:
@@ -129,6 +133,6 @@ def check(paths, claims_path, json_out, csv_out, xlsx_out, report_out, steps, ce
     outputs = prepare_outputs([*files, claims_path], json=json_out, csv=csv_out, xlsx=xlsx_out, report=report_out)
     status, _ = check_and_write(
         files, claims_path, outputs=outputs, sets=read_sets(bins, ellipses, steps), centre=centre,
-        uncertainty=uncertainty, rule=rule, **reading,
+        uncertainty=uncertainty, rule=rule, report_options={"report_info": info, "paper": paper}, **reading,
     )
     sys.exit(status)

@@ -27,7 +27,8 @@ def demo(out_dir):
     The supplier, Quillfen Lighting, and its lamps are invented; their spectra are made
     from physical models. Some of its claims are false on purpose.
     """
-    from ..io.demo_data import demo_claims, demo_files
+    from ..io.demo_data import demo_claims, demo_files, demo_report_info
+    from ..report.report_info import read_report_info
 
     out = Path(out_dir)
     out.mkdir(parents=True, exist_ok=True)
@@ -38,7 +39,10 @@ def demo(out_dir):
     if rate_and_write(files, outputs=rate_outputs):
         sys.exit(2)
     click.echo(f"\nChecking the supplier's claims ({demo_claims().name}):\n")
-    status, ratings = check_and_write(files, demo_claims(), outputs=check_outputs, quiet_table=True)
+    status, ratings = check_and_write(
+        files, demo_claims(), outputs=check_outputs, quiet_table=True,
+        report_options={"report_info": read_report_info(demo_report_info())},
+    )
     if status == 2:
         sys.exit(2)
     demo_uncertainty(out)

@@ -67,11 +67,12 @@ def prepare_outputs(inputs=(), **paths):
     return outputs
 
 
-def write_outputs(ratings, verdicts, outputs):
+def write_outputs(ratings, verdicts, outputs, report_options=None):
     """Write the outputs asked for (see :func:`prepare_outputs`) together.
 
     JSON and CSV hold the verdicts when claims were checked, else the ratings; the
-    workbook holds the ratings, their flags and the verdicts; the report both.
+    workbook holds the ratings, their flags and the verdicts; the report both
+    (``report_options``: its ``report_info`` and ``paper``).
     """
     from ..io.atomic import replaced_together
     from ..io.workbook import write_workbook
@@ -95,7 +96,7 @@ def write_outputs(ratings, verdicts, outputs):
                     sheets.append(("notes", ["note"], [[CAUTION], ["Keys and units: docs/output-fields.md"]]))
                     write_workbook(tmp[path], sheets)
                 else:
-                    write_report_file(tmp[path], ratings, verdicts, shown_as=path)
+                    write_report_file(tmp[path], ratings, verdicts, shown_as=path, **(report_options or {}))
     except OSError as err:
         raise Failure(f"cannot write the outputs ({err.strerror or err}: {err.filename or ''}); none was changed") from None
     for kind, path in outputs.items():

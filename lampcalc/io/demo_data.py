@@ -24,6 +24,11 @@ def demo_claims():
     return demo_folder() / "claims_quillfen.csv"
 
 
+def demo_report_info():
+    """The report information of the demo's report (a TOML file)."""
+    return demo_folder() / "report_info_quillfen.toml"
+
+
 def demo_set(name):
     """The spectrum files of one demo set in a subfolder of the demo: ``"lot"``, ``"angles"`` or ``"datasheet"``."""
     folder = demo_folder() / name

@@ -18,12 +18,10 @@ says it in words.
 """
 
 import math
-import re
-import tomllib
 from dataclasses import dataclass, fields
-from pathlib import Path
 
 from ..errors import InputError
+from ..io.toml_files import key_line, read_toml
 
 #: Key -> what it is, with its unit. The keys of a measurement-model file, in this order.
 MODEL_KEYS = {
@@ -142,15 +140,6 @@ class MeasurementModel:
         return {f.name: getattr(self, f.name) for f in fields(self)}
 
 
-def _line_of(text, key):
-    """Line number of ``key``'s assignment (or table header) in TOML ``text``; None if not found."""
-    pattern = re.compile(rf"^\s*\[*\s*[\"']?{re.escape(key)}[\"']?\s*[.=\]]")
-    for number, line in enumerate(text.splitlines(), 1):
-        if pattern.match(line):
-            return number
-    return None
-
-
 def read_measurement_model(path):
     """Read a measurement-model TOML file.
 
@@ -169,20 +158,10 @@ def read_measurement_model(path):
         a negative or non-finite value, and a model with no uncertainty at all; one line naming
         the file and the line of the key at fault.
     """
-    try:
-        text = Path(path).read_text(encoding="utf-8-sig")
-    except (OSError, UnicodeDecodeError) as err:
-        raise InputError(f"{path}: cannot be read as a text file ({err})") from None
-    try:
-        data = tomllib.loads(text)
-    except tomllib.TOMLDecodeError as err:
-        message = str(err)
-        found = re.search(r"\(at line (\d+), column \d+\)", message)
-        where = f", line {found.group(1)}" if found else ""
-        raise InputError(f"{path}{where}: not a valid TOML file ({message})") from None
+    data, text = read_toml(path)
 
     def fail(key, message):
-        line = _line_of(text, key)
+        line = key_line(text, key)
         raise InputError(f"{path}{'' if line is None else f', line {line}'}: {message}")
 
     for key, value in data.items():

@@ -318,21 +318,10 @@ class Verdicts:
         return all(lamp["pass"] for lamp in self.lamps)
 
     def summary(self):
-        checks = [c for lamp in self.lamps for c in lamp["checks"]]
-        failed = sum(c["pass"] is False for c in checks)
-        undecided = sum(c["pass"] is None for c in checks)
-        lamps_failed = sum(not lamp["pass"] for lamp in self.lamps)
-        text = (
-            f"{len(self.lamps)} lamps claimed, {lamps_failed} with a claim that does not hold; "
-            f"{len(checks)} checks: {len(checks) - failed - undecided} pass, {failed} fail"
-        )
-        if undecided:
-            text += f", {undecided} cannot be checked"
-        if self.missing:
-            text += f"; claimed but no spectrum: {', '.join(self.missing)}"
-        if self.unclaimed:
-            text += f"; not claimed: {', '.join(self.unclaimed)}"
-        return text
+        """The counts in one line, in the words of :mod:`lampcalc.verdicts.wording`."""
+        from .wording import count_line
+
+        return count_line(self)
 
     def _extra_keys(self):
         """Keys a layer on top (the measurement uncertainty) added to the checks, in order."""

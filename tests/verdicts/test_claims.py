@@ -54,7 +54,7 @@ def test_true_claims_pass_and_unclaimed_listed(demo_run):
         entry = next(v for v in verdicts if v["lamp"] == lamp)
         assert entry["pass"] is True and all(c["pass"] for c in entry["checks"])
     assert _check(verdicts, "QF-DL-4000", "ra")["pass"] is True
-    assert "not claimed: QF-RGB-5600" in result.stdout
+    assert "no claims for QF-RGB-5600" in result.stdout
     assert "QF-RGB-5600" not in {v["lamp"] for v in verdicts}
     assert "not a photometric test report" in result.stdout
 
