@@ -49,9 +49,8 @@ def flag_legend(ratings):
     return "\n".join(f"  {flag}: {explain(flag)}" for flag in raised)
 
 
-#: Labels and formats of the uncertainty decision table (cli/uncertainty.py) and the words of the lot
-#: and comparison tables (lot_printouts, compare_printouts); the claims check's verdict table uses
-#: lampcalc.verdicts.wording.
+#: Labels and formats of the uncertainty decision table (cli/uncertainty.py); the claims check's verdict
+#: table and the lot and comparison tables use lampcalc.verdicts.wording and lampcalc.verdicts.lot_wording.
 CRITERIA = {
     # criterion: (label, claimed format, value format, unit)
     "ansi_quadrangle": ("ANSI quadrangle", "{:g} K", "{:.0f} K", "e-3 uv"),
@@ -68,7 +67,6 @@ CRITERIA = {
     "efficacy_lm_per_W": ("lamp efficacy", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
     "spectrum": ("spectrum", "{}", "{}", ""),
 }
-RESULT = {True: "holds", False: "FAILS", None: "not shown"}
 
 
 def verdict_text(verdicts, ratings=None):
