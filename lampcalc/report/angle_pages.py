@@ -104,10 +104,7 @@ class AnglePages:
 
     def _layout(self, report):
         if "angles" not in report.cache:
-            from .document import FOOTER_MM, HEADER_MM, MARGIN_MM
-
-            width = report.paper.width_mm - 2 * MARGIN_MM
-            room = report.paper.height_mm - 2 * MARGIN_MM - HEADER_MM - FOOTER_MM
+            width, room = report.paper.content_mm
             letters = flag_letters(report.records)
             rows = _rows(report, letters)
             columns = [Column(h, share * width, align, wrap=h == "flags") for h, share, align in _COLUMNS]

@@ -86,13 +86,10 @@ class ComparisonPages:
     def _overview_pages(self, report):
         """Row ranges of the list of pairs (none for a single pair)."""
         if "comparison" not in report.cache:
-            from .document import FOOTER_MM, HEADER_MM, MARGIN_MM
-
             pairs, n = _pairs(report), len(_pairs(report)["test_name"])
-            width = report.paper.width_mm - 2 * MARGIN_MM
-            room = report.paper.height_mm - 2 * MARGIN_MM - HEADER_MM - FOOTER_MM - 40  # the lead and notes
-            table = self._overview_table(pairs, range(n), width)
-            per_page = max(1, int((room - table.header_height()) // table.line)) if n > 1 else n
+            width, room = report.paper.content_mm
+            table = self._overview_table(pairs, range(n), width)  # rows of one line each: cells are shortened
+            per_page = max(1, int((room - 40 - table.header_height()) // table.line))  # 40 mm: the lead and notes
             report.cache["comparison"] = [(a, min(n, a + per_page)) for a in range(0, n, per_page)] if n > 1 else []
         return report.cache["comparison"]
 

@@ -51,6 +51,11 @@ class Paper:
     width_mm: float
     height_mm: float
 
+    @property
+    def content_mm(self):
+        """(width, height) of a page's content: inside the margins, below the title, above the footer, mm."""
+        return self.width_mm - 2 * MARGIN_MM, self.height_mm - 2 * MARGIN_MM - HEADER_MM - FOOTER_MM
+
 
 #: Paper sizes by the name ``--paper`` takes.
 PAPERS = {"a4": Paper("A4", 210.0, 297.0), "letter": Paper("US Letter", 215.9, 279.4)}

@@ -165,10 +165,7 @@ class LotPages:
 
     def _layout(self, report):
         if "lot" not in report.cache:
-            from .document import FOOTER_MM, HEADER_MM, MARGIN_MM
-
-            width = report.paper.width_mm - 2 * MARGIN_MM
-            room = report.paper.height_mm - 2 * MARGIN_MM - HEADER_MM - FOOTER_MM
+            width, room = report.paper.content_mm
             flags = sum(paragraph_height(t, width - 12, size=6.6) for t in flag_lines(report.lot)) + 3
             pages, rows = [], []
             if report.lot_verdicts is not None:

@@ -113,3 +113,21 @@ def test_a_lot_of_two_without_claims(tmp_path, demo_lot):
     text = _flat(" ".join(pdf_pages(path)))
     assert "No claims on the lot were checked" in text
     assert "none: it needs 3 samples or more" in text and _flat(explain("lot_too_small_for_ellipse")) in text
+
+
+def test_a_users_bins_are_listed_with_the_ansi_categories(invent, around):
+    # Samples counted in a supplier's sub-bins (invented names); a sample whose bin has corners not read from a
+    # published table (flag bin_corners_unconfirmed) puts the counts in parentheses.
+    from lampcalc.report.lot_pages import colour_items
+    from lampcalc.verdicts.lot import lot_statistics
+
+    xy = around((0.4339, 0.4033))  # REFERENCE_VALUES.md, ANSI C78.377-2017 3000 K centre
+    names = ("3A",) * 5 + ("3B",) * 6 + (None,)
+    lot = lot_statistics(invent(xy, bin_set=("sub-bins",) * 12, bin=names), nominal_cct_K=3000)
+    items = dict(colour_items(lot))
+    assert items["bins (sub-bins)"] == "3A: 5, 3B: 6, none: 1"
+    flags = (("bin_corners_unconfirmed",),) + ((),) * 11
+    lot = lot_statistics(invent(xy, bin_set=("sub-bins",) * 12, bin=names, flags=flags), nominal_cct_K=3000)
+    assert dict(colour_items(lot))["bins (sub-bins)"] == "(3A: 5, 3B: 6, none: 1)"
+    default = dict(colour_items(lot_statistics(invent(xy), nominal_cct_K=3000)))  # the ANSI set: listed once, as categories
+    assert "ANSI C78.377" in default and not any(label.startswith("bins") for label in default)
