@@ -179,7 +179,8 @@ def set_options(fn):
         [
             click.option(
                 "--bins", type=click.Path(exists=True, dir_okay=False), default=None, metavar="FILE",
-                help="Bin set file (docs/standard-sets.md): the bins of the bin columns and of nominal-CCT claims.",
+                help="Bin set file (docs/standard-sets.md): the bins of the bin columns, of nominal-CCT claims and of a "
+                "lot's counts.",
             ),
             click.option(
                 "--ellipses", type=click.Path(exists=True, dir_okay=False), default=None, metavar="FILE",

@@ -30,7 +30,7 @@ RATINGS = {"x": "x", "y": "y", "u_prime": "u′", "v_prime": "v′", "cct_K": "C
            "sp_ratio": "S/P", "melanopic_der": "mel-DER", "melanopic_edi_lx": "mel-EDI"}
 SPECTRA_MM = 128.0  # the figures beside the ratings table
 SPECTRUM_MM = 70.0  # the upper figure: both spectra
-TABLE_MM = 74.0  # width of the ratings table
+TABLE_MM = 80.0  # width of the ratings table
 NOTE = (f"Spectra scaled to the same luminous quantity (Σ V(λ)·S(λ)), the reference's peak at 1; the ratio test / "
         f"reference only where the reference is above {100 * RATIO_FLOOR:g} % of its peak and both were measured. "
         "Difference: test − reference.")
@@ -166,9 +166,9 @@ class ComparisonPages:
             y += verdict_table([pair_limit(pairs, k)], sheet.width).draw(page, sheet.left, y) + 3
             y += heading(page, sheet.left, y, "Spectra and ratings", sheet.width)
             self._spectra(page, sheet, reference, test, pairs, k, y)
-            columns = [Column("rating", 0.26 * TABLE_MM, "left"), Column("unit", 0.13 * TABLE_MM, "left"),
-                       Column("reference", 0.2 * TABLE_MM), Column("test", 0.2 * TABLE_MM),
-                       Column("difference", 0.21 * TABLE_MM)]
+            # numbers wrap rather than being shortened: "1.185 × 10⁻¹⁰" must never print as "1.185 × …"
+            columns = [Column("rating", 0.25 * TABLE_MM, "left"), Column("unit", 0.1 * TABLE_MM, "left"),
+                       *(Column(h, 0.217 * TABLE_MM, wrap=True) for h in ("reference", "test", "difference"))]
             Table(columns, rating_rows(pairs, k), size=6.2).draw(page, sheet.right - TABLE_MM, y + 1)
             y += SPECTRA_MM + 1
             y += paragraph(page, sheet.left, y, NOTE, sheet.width, size=5.8, color=MUTED) + 2

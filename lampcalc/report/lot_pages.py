@@ -76,7 +76,8 @@ def colour_items(lot):
         ("mean x, y", f"{q('mean_x')}, {q('mean_y')}"),
         ("mean u′, v′", f"{q('mean_u_prime')}, {q('mean_v_prime')} (means of the samples' u′, v′)"),
         ("mean point", f"CCT {format_value('cct_K', lot['mean_point_cct_K'], unit=True)}, "
-                       f"Duv {format_value('duv', lot['mean_point_duv'])}"),
+                       f"Duv {format_value('duv', lot['mean_point_duv'])}" if np.isfinite(lot["mean_point_cct_K"])
+         else "no CCT: the mean point lies away from the Planckian locus"),
     ]
     if lot["steps_centre_chosen"] != "none":
         where = "ANSI C78.377 target" if lot["steps_centre"] == "ansi" else "ellipse set's own centre"

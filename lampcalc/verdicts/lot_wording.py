@@ -89,6 +89,7 @@ def word_lot_check(check):
     """
     passed, claimed, measured, margin = (check[k] for k in ("pass", "claimed", "measured", "margin"))
     why, qualification = _split_note(check.get("note") or "")
+    why = why.removeprefix(f"{VERDICT_WORDS[None]}: ")  # the verdict column says so
     if check["kind"] == "quantity":
         quantity, operator = check["claim"].split(" ")[:2]
         operator = "≥" if operator == ">=" else "≤"
