@@ -47,6 +47,7 @@ import numpy as np
 
 from ..spectra.batch import SpectralBatch
 from ..spectra.resampling import linear
+from .flags import VALIDITY_FLAGS
 from .rate import rate_spectra
 from .ratings import FIELDS, Ratings
 
@@ -319,15 +320,33 @@ class _Summary:
         self.incomplete = np.zeros(n, dtype=bool)
         self.xy = np.empty((n, draws, 2))
         self.filled = np.zeros(n, dtype=int)
+        self.draws = draws
+        self.flag_counts = {}  # lamp -> {validity flag: draws that carry it}
+        self.categories = {}  # lamp -> the (ANSI category, bin) pairs the draws fall in
+        self.in_draws = [()] * n
+        self.varies = np.zeros(n, dtype=bool)
 
     def add(self, lamp, part):
         self.parts.setdefault(lamp, []).append({k: part[k] for k in self.keys})
         k = len(part)
         self.xy[lamp, self.filled[lamp]: self.filled[lamp] + k] = np.stack([part["x"], part["y"]], axis=-1)
         self.filled[lamp] += k
+        counts = self.flag_counts.setdefault(lamp, dict.fromkeys(VALIDITY_FLAGS, 0))
+        for flags in part["flags"]:
+            for flag in set(flags).intersection(counts):
+                counts[flag] += 1
+        ansi = np.nan_to_num(np.asarray(part["ansi_nominal_cct_K"], dtype=float), nan=-1.0)
+        bins = part["bin"] if "bin" in part else (None,) * k
+        self.categories.setdefault(lamp, set()).update(zip(ansi.tolist(), bins))
 
     def finish(self, lamp):
         parts = self.parts.pop(lamp)
+        measured = set(self.nominal["flags"][lamp])
+        self.in_draws[lamp] = tuple(
+            f"{flag}: {100.0 * count / self.draws:.4g} % of draws"
+            for flag, count in self.flag_counts.pop(lamp).items() if count != (self.draws if flag in measured else 0)
+        )
+        self.varies[lamp] = len(self.categories.pop(lamp)) > 1
         for key in self.keys:
             draws = np.concatenate([p[key] for p in parts])
             known = np.isfinite(self.nominal[key][lamp])
@@ -344,7 +363,10 @@ class _Summary:
         for key in self.keys:
             columns[f"{key}_u"] = self.u[key]
             columns[f"{key}_interval95"] = self.interval[key]
+        columns["uncertainty_flags_in_draws"] = tuple(self.in_draws)
         columns["flags"] = tuple(
-            f + ("uncertainty_incomplete",) if bad else f for f, bad in zip(columns["flags"], self.incomplete)
+            f + ("uncertainty_incomplete",) * bool(bad) + ("uncertainty_crosses_validity",) * bool(crossed)
+            + ("uncertainty_category_varies",) * bool(varies)
+            for f, bad, crossed, varies in zip(columns["flags"], self.incomplete, self.in_draws, self.varies)
         )
         return Ratings(columns, {**self.nominal.extras, "uncertainty": extra})
