@@ -89,13 +89,13 @@ def _interval(interval, spec, doubtful):
 
 def uncertainty_table(ratings):
     """The 95 % intervals of the main ratings, one row per lamp, and what they mean."""
-    from ..rating.flags import doubtful_keys
+    from ..rating.flags import doubtful_interval_keys
     from .text_table import format_table
 
     model = ratings.extras["uncertainty"].model
     rows = []
     for r in ratings.records():
-        doubt = doubtful_keys(r["flags"])
+        doubt = doubtful_interval_keys(r["flags"], r["uncertainty_flags_in_draws"])
         row = [r["name"]]
         for _, key, spec in _COLUMNS:
             column, index = key if isinstance(key, tuple) else (key, None)
@@ -117,49 +117,37 @@ def uncertainty_table(ratings):
     )
 
 
-def _share(p):
-    """A share of draws in %, rounded away from 0 % and 100 % unless it is exactly that."""
-    if p is None:
-        return "-"
-    if p in (0.0, 1.0):
-        return f"{100 * p:.0f} %"
-    tenths = math.floor(1000 * p) if p > 0.5 else math.ceil(1000 * p)
-    return f"{tenths / 10:.1f} %"
+def decision_text(verdicts, rule, ratings=None):
+    """Each claimed lamp's checks with the measured value's interval, the margin's uncertainty and the rule's outcome.
 
-
-def decision_text(verdicts, rule):
-    """Each claimed lamp's checks with the measured value's interval, the margin's uncertainty and the rule's outcome."""
+    The claims, values and margins read as in the verdict table (lampcalc.verdicts.wording); ``ratings``
+    gives the flags that put values and intervals in parentheses.
+    """
     from ..verdicts.decision_rules import OUTCOMES
-    from .printouts import CRITERIA
+    from ..verdicts.decision_wording import NOT_DECIDED, word_decisions
+    from ..verdicts.wording import pair_verdicts
     from .text_table import format_table
 
-    def number(value, spec, unit):
-        return "-" if value is None or not math.isfinite(value) else f"{value:{spec}} {unit}".strip()
-
+    records = ratings.records() if ratings is not None else []
+    flags = {id(lamp): (r["flags"], r.get("uncertainty_flags_in_draws")) for r, lamp in
+             zip(records, pair_verdicts([r["name"] for r in records], verdicts)) if lamp is not None}
     blocks = [f"With measurement uncertainty; decision rule: {rule.describe()}"]
     seen = set()
     for lamp in verdicts.lamps:
         if lamp["lamp"] in verdicts.missing:
             continue  # no spectrum: said with the verdicts
-        rows = []
-        for c in lamp["checks"]:
-            label, _, value_fmt, unit = CRITERIA[c["criterion"]]
-            interval = c["measured_interval95"]
-            shown = "-" if interval is None else "[" + ", ".join(value_fmt.format(v) for v in interval) + "]"
-            rows.append([
-                label, "-" if c["measured"] is None else value_fmt.format(c["measured"]), shown,
-                number(c["margin"], "+.4g", unit), number(c["margin_u"], ".3g", unit), number(c["guard_band"], ".3g", unit),
-                _share(c["conformance_probability"]), c["decision"] or "not decided",
-            ])
-            seen.add(c["decision"])
+        words = word_decisions(lamp, *flags.get(id(lamp), ((), ())))
+        rows = [[w.claim, w.measured, w.interval, w.margin, w.margin_u, w.guard_band, w.holding, w.decision] for w in words]
+        seen.update(w.outcome for w in words)
         table = format_table(
             ["claim", "measured", "95 % interval", "margin", "u(margin)", "guard band", "draws holding", "decision"],
-            rows, "llrrrrrl",
+            rows, "lrrrrrrl",
         )
-        blocks.append(f"{lamp['lamp']}: {lamp['decision'] or 'not decided'}\n" + "\n".join("  " + line for line in table.splitlines()))
+        blocks.append(f"{lamp['lamp']}: {lamp['decision'] or NOT_DECIDED}\n" + "\n".join("  " + line for line in table.splitlines()))
     legend = [f"{o}: {rule.explain(o)}" for o in OUTCOMES if o in seen]
     if None in seen:
-        legend.append("not decided: no measured value, or its uncertainty is unknown (a draw gave none)")
-    legend.append("draws holding: share of the Monte Carlo draws in which the claim holds; guard band: w of the rule")
+        legend.append(f"{NOT_DECIDED}: no measured value, or its uncertainty is unknown (a draw gave none)")
+    legend.append("draws holding: share of the Monte Carlo draws in which the claim holds; guard band: w of the rule; "
+                  "(interval): in doubt, see the flags")
     legend.append("The exit status follows the verdicts above (simple comparison with the claim), not these decisions.")
     return "\n\n".join(blocks) + "\n" + "\n".join(legend)

@@ -72,6 +72,11 @@ def test_check_adds_decisions_beside_the_verdicts(run, files, tmp_path):
     ra = next(c for c in new[1]["checks"] if c["criterion"] == "ra")
     assert ra["decision"] == "fail" and ra["conformance_probability"] == 0.0  # CIE 13.3: Ri = 100 − 4.6·ΔE ≤ 100, so no draw reaches Ra 101
     assert "decision rule: guarded acceptance, w = 3·u" in after.stdout and "draws holding" in after.stdout
+    # The decision table words its claims as the verdict table does (lampcalc.verdicts.wording), margins in Δuv.
+    verdict_part, decision_part = after.stdout.split("With measurement uncertainty")
+    for claim in ("nominal 3000 K: in its quadrangle", "Ra ≥ 99", "Ra ≥ 101"):
+        assert claim in verdict_part and claim in decision_part
+    assert "Δuv" in decision_part and "e-3 uv" not in decision_part
 
 
 @pytest.mark.parametrize(
