@@ -89,7 +89,7 @@ def _interval(interval, spec, doubtful):
 
 def uncertainty_table(ratings):
     """The 95 % intervals of the main ratings, one row per lamp, and what they mean."""
-    from ..rating.flags import doubtful_interval_keys
+    from ..rating.flags import doubtful_interval_keys, draw_flag_lines
     from .text_table import format_table
 
     model = ratings.extras["uncertainty"].model
@@ -109,6 +109,9 @@ def uncertainty_table(ratings):
     table = format_table([headers[j] for j in keep], [[row[j] for j in keep] for row in rows], "l" + "r" * (len(keep) - 1))
     where = f" ({model.source})" if model.source else ""
     precision = 100.0 / math.sqrt(2.0 * (model.draws - 1))
+    crossed = [f"{r['name']}: {line}" for r in ratings.records() for line in draw_flag_lines(r["uncertainty_flags_in_draws"])]
+    if crossed:
+        table += "\n(interval): in doubt, in part of the draws or all (see the flags):\n" + "\n".join("  " + c for c in crossed)
     return (
         f"Measurement uncertainty{where}: {model.describe()}\n{table}\n"
         "[low, high]: 95 % coverage interval over the Monte Carlo draws (JCGM 101:2008 7.7.2, probabilistically\n"

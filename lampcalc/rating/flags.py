@@ -58,8 +58,8 @@ FLAG_MEANINGS = {
     "uncertainty_incomplete": "some Monte Carlo draws gave no value for a rating (e.g. no CCT): its uncertainty is null",
     "uncertainty_crosses_validity": (
         "in part of the Monte Carlo draws a validity limit is crossed (e.g. DC > 5.4e-3, |Duv| > 0.05) that the "
-        "spectrum as measured does not cross, or the reverse (uncertainty_flags_in_draws says which, in how many "
-        "draws): the intervals of the ratings it concerns mix valid and doubtful values and are in parentheses"
+        "spectrum as measured does not cross, or the reverse: the intervals of the ratings it concerns mix valid and "
+        "doubtful values and are in parentheses"
     ),
     "uncertainty_category_varies": (
         "the lamp's ANSI C78.377 category (or its bin in the set given) differs between Monte Carlo draws: "
@@ -124,8 +124,13 @@ VALIDITY_FLAGS = tuple(dict.fromkeys([*DOUBTFUL_KEYS, *NULLED_KEYS]))
 
 
 def flags_in_draws(entries):
-    """The flag names of ``uncertainty_flags_in_draws`` entries ("cri_outside_validity: 12.5 % of draws")."""
-    return [entry.split(":")[0] for entry in entries or ()]
+    """(flag, share of the draws in %) of ``uncertainty_flags_in_draws`` entries ("cri_outside_validity: 12.5 % of draws")."""
+    return [(flag, float(rest.split(" %")[0])) for flag, _, rest in (entry.partition(": ") for entry in entries or ())]
+
+
+def draw_flag_lines(entries):
+    """Each flag raised in part of the Monte Carlo draws in words, with its share: what the terminal and report print."""
+    return [f"in {percent:g} % of the draws: {explain(flag)}" for flag, percent in flags_in_draws(entries)]
 
 
 def doubtful_interval_keys(flags, draw_flags=()):
@@ -140,5 +145,5 @@ def doubtful_interval_keys(flags, draw_flags=()):
     >>> sorted(doubtful_interval_keys((), ["cri_outside_validity: 12.5 % of draws"]))
     ['ra', 'ri']
     """
-    crossed = flags_in_draws(draw_flags)
+    crossed = [flag for flag, _ in flags_in_draws(draw_flags)]
     return doubtful_keys(flags) | doubtful_keys(crossed) | {k for f in crossed for k in NULLED_KEYS.get(f, ())}

@@ -49,7 +49,7 @@ def text_width_mm(text, size_pt, weight="normal"):
 def wrap(text, width_mm, size_pt, weight="normal"):
     """``text`` broken into lines no wider than ``width_mm`` (at spaces; a long word is cut)."""
     lines = []
-    for paragraph in plain_text(text).split("\n") if "\n" in str(text) else [plain_text(text)]:
+    for paragraph in (plain_text(part) for part in str(text).split("\n")):  # each line as given, then wrapped
         line = ""
         for word in paragraph.split(" "):
             trial = f"{line} {word}" if line else word
