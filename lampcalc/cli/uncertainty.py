@@ -1,4 +1,4 @@
-"""What ``--uncertainty`` adds to ``rate`` and ``check``: its options, the Monte Carlo run and its tables."""
+"""What ``--uncertainty`` adds to ``rate``, ``check``, ``compare`` and ``lot``: its options, the Monte Carlo run, its tables."""
 
 import math
 import sys
@@ -49,10 +49,11 @@ def rule_from_options(uncertainty, name, k):
     return DecisionRule(name or "simple", 2.0 if k is None else k)
 
 
-def rate_with_model(batches, model, interpolation, nominal=None, sets=None, on_draws=None):
+def rate_with_model(batches, model, interpolation, nominal=None, sets=None, on_draws=None, **kept):
     """Rate the batches (as read) with the model's uncertainty; a progress bar on a terminal.
 
-    ``nominal``: claimed nominal CCTs keyed by casefolded lamp name; ``sets``: (bin set, ellipse set).
+    ``nominal``: claimed nominal CCTs keyed by casefolded lamp name; ``sets``: (bin set, ellipse set);
+    ``kept``: ``keep`` and ``stream`` of rate_with_uncertainty.
     """
     from ..rating.uncertainty import rate_with_uncertainty
 
@@ -64,6 +65,7 @@ def rate_with_model(batches, model, interpolation, nominal=None, sets=None, on_d
         "bin_set": bin_set,
         "ellipse_set": ellipse_set,
         "on_draws": on_draws,
+        **kept,
     }
     if sys.stderr.isatty():
         label = f"Monte Carlo, {model.draws} draws a lamp"
@@ -154,3 +156,51 @@ def decision_text(verdicts, rule, ratings=None):
                   "(interval): in doubt, see the flags")
     legend.append("The exit status follows the verdicts above (simple comparison with the claim), not these decisions.")
     return "\n\n".join(blocks) + "\n" + "\n".join(legend)
+
+
+#: The differences of the comparison's uncertainty table: (label, output key of the difference, key of its digits).
+_DIFFERENCES = (
+    ("Δu'v'", "delta_uv_prime", "u_prime"), ("ΔCCT K", "delta_cct_K", "cct_K"), ("ΔDuv", "delta_duv", "duv"),
+    ("ΔRa", "delta_ra", "ra"), ("ΔR9", "delta_r9", "ri"), ("ΔRf", "delta_rf", "rf"), ("ΔRg", "delta_rg", "rg"),
+    ("ΔLER lm/W", "delta_ler_lm_per_W", "ler_lm_per_W"),
+)
+
+
+def comparison_text(comparison, model):
+    """Each pair's differences with u and 95 % interval, and the decision against the limit."""
+    from ..verdicts.wording import format_share, format_uncertainty, format_value
+    from .text_table import format_table
+
+    from ..rating.flags import doubtful_keys
+
+    p = comparison["pairs"]
+    decided = "decision" in p
+    blocks = [f"With measurement uncertainty ({model.describe()}); reference and test drawn independently"]
+    for k in range(len(p["test_name"])):
+        rows = []
+        doubt = doubtful_keys(p["reference_flags"][k]) | doubtful_keys(p["test_flags"][k])
+        for label, key, digits in _DIFFERENCES:
+            if not math.isfinite(p[key][k]):
+                continue
+            decimals = 5 if digits == "u_prime" else None
+            low, high = p[f"{key}_interval95"][k]
+            shown = [format_value(digits, v, decimals=decimals, signed=key != "delta_uv_prime") for v in (p[key][k], low, high)]
+            row = [shown[0], format_uncertainty(p[f"{key}_u"][k]), f"[{shown[1]}, {shown[2]}]"]
+            rows.append([label, *(f"({text})" if digits in doubt else text for text in row)])
+        table = format_table(["difference", "measured", "u", "95 % interval"], rows, "lrrr")
+        lines = [f"{p['reference_name'][k]} -> {p['test_name'][k]}", *("  " + line for line in table.splitlines())]
+        if decided:
+            lines.append(
+                f"  limit {p['limit_delta_uv_prime'][k]:g}: margin {format_value('u_prime', p['margin_delta_uv_prime'][k], decimals=5, signed=True)}, "
+                f"u(margin) {format_uncertainty(p['margin_delta_uv_prime_u'][k])}, guard band "
+                f"{format_uncertainty(p['guard_band'][k])}, draws holding {format_share(float(p['conformance_probability'][k]))}: "
+                f"{p['decision'][k] or 'not decided'} ({p['decision_rule'][k]})"
+            )
+        blocks.append("\n".join(lines))
+    blocks.append(
+        "Δ: test - reference; u and the 95 % interval over the Monte Carlo draws (JCGM 101:2008). Δu'v' is a distance:\n"
+        "near zero its draws lie above the measured value. Effects both measurements share (one calibration) would\n"
+        "cancel in the differences; drawn independently they count twice. (values): outside the method's validity\n"
+        "for one side. The result above follows the measured values, not the decision."
+    )
+    return "\n\n".join(blocks)

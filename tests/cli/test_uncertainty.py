@@ -100,3 +100,25 @@ def test_a_bad_spectrum_file_does_not_stop_the_others(run, files, write, tmp_pat
     result = run("rate", spectra, bad, "--uncertainty", model, "--json", out)
     assert result.exit_code == 2 and "bad.csv, line 3" in result.stderr
     assert [r["name"] for r in json.loads(out.read_text())] == ["bb2950", "bb3500"]
+
+
+def test_compare_with_uncertainty_adds_the_differences_uncertainty_and_a_decision(run, write, bb_table, tmp_path):
+    # Planck's law: blackbodies at 2950 K and 3050 K (11 mired apart) lie about 0.004 apart in u′v′ (from
+    # memory), twice a 0.002 limit and far beyond what this model's noise can move.
+    reference, test = write("ref.csv", bb_table([2950.0])), write("test.csv", bb_table([3050.0]))
+    model = write("lab.toml", MODEL)
+    plain, judged = tmp_path / "plain.json", tmp_path / "judged.json"
+    before = run("compare", reference, test, "--limit-delta-uv-prime", "0.002", "--json", plain)
+    after = run("compare", reference, test, "--limit-delta-uv-prime", "0.002", "--uncertainty", model,
+                "--decision-rule", "guarded", "--json", judged, "--csv", tmp_path / "judged.csv")
+    assert before.exit_code == after.exit_code == 1  # the result follows the measured Δu′v′, as before
+    (old,), (new,) = (json.loads(path.read_text())["pairs"] for path in (plain, judged))
+    same = [k for k in old if not k.endswith("flags")]  # each side's flags may gain those of its draws
+    assert {k: new[k] for k in same} == {k: old[k] for k in same}
+    assert new["delta_uv_prime_u"] > 0 and new["delta_cct_K_interval95"][0] < new["delta_cct_K"] < new["delta_cct_K_interval95"][1]
+    assert new["decision"] == "fail" and new["conformance_probability"] == 0.0
+    assert "reference and test drawn independently" in after.stdout and "u(margin)" in after.stdout
+    header = (tmp_path / "judged.csv").read_text().splitlines()[0].split(",")
+    assert header[header.index("delta_uv_prime") + 1] == "delta_uv_prime_u"
+    refused = run("compare", reference, test, "--decision-rule", "guarded")
+    assert refused.exit_code == 2 and "need --uncertainty" in refused.stderr
