@@ -204,3 +204,50 @@ def comparison_text(comparison, model):
         "for one side. The result above follows the measured values, not the decision."
     )
     return "\n\n".join(blocks)
+
+
+#: Rows of the lot's colour in the uncertainty table: (label, key, digits key, decimals).
+_LOT_COLOUR = (
+    ("mean x", "mean_x", "x", 5), ("mean y", "mean_y", "y", 5), ("mean u'", "mean_u_prime", "u_prime", 5),
+    ("mean v'", "mean_v_prime", "v_prime", 5), ("CCT of the mean point K", "mean_point_cct_K", "cct_K", None),
+    ("Duv of the mean point", "mean_point_duv", "duv", None),
+    *((f"within {k} steps %", f"within_{k}_steps_percent", "chroma_shift_hue_bins_percent", 1) for k in range(1, 8)),
+    ("ellipse semi-major (x, y)", "ellipse_semi_major_xy", "x", 5), ("ellipse semi-minor (x, y)", "ellipse_semi_minor_xy", "x", 5),
+    ("largest Δu'v' between samples", "max_pairwise_delta_uv_prime", "u_prime", 5),
+    ("largest Δu'v' from the mean", "max_delta_uv_prime_from_mean", "u_prime", 5),
+)
+
+
+def lot_uncertainty_text(lot):
+    """The lot's statistics with the uncertainty the measurement adds: the ratings' mean, sd, min, max, then its colour."""
+    from ..verdicts.lot import LOT_RATINGS
+    from ..verdicts.wording import format_uncertainty, format_value
+    from .lot_printouts import RATING_LABELS
+    from .text_table import format_table
+
+    def shown(key, digits, decimals):
+        if lot.get(f"{key}_u") is None or not math.isfinite(lot[f"{key}_u"]):
+            return None
+        low, high = lot[f"{key}_interval95"]
+        signed = False if key.endswith("_sd") else None  # a spread has no sign
+        value, low, high = (format_value(digits, v, decimals=decimals, signed=signed) for v in (lot[key], low, high))
+        return [value, format_uncertainty(lot[f"{key}_u"]), f"[{low}, {high}]"]
+
+    rows = []
+    for key in LOT_RATINGS:
+        label, unit, spec = RATING_LABELS[key]
+        decimals = int(spec.lstrip("+.")[0]) if spec.lstrip("+").startswith(".") and spec.endswith("f") else None
+        stats = [shown(f"{key}_{s}", key, decimals) for s in ("mean", "sd", "min", "max")]
+        if any(stats):
+            rows.append([label, unit, *(cell for stat in stats for cell in (stat or ["-", "-", "-"])[:2])])
+    table = format_table(["rating", "unit", "mean", "u", "sd", "u", "min", "u", "max", "u"], rows, "llrrrrrrrr")
+    colour = [[label, *found] for label, key, digits, decimals in _LOT_COLOUR if (found := shown(key, digits, decimals))]
+    colour_table = format_table(["lot's colour", "value", "u", "95 % interval"], colour, "lrrr")
+    return (
+        f"Uncertainty the measurement adds to the lot's statistics ({lot['measurement_model']}):\n{table}\n\n"
+        f"{colour_table}\n"
+        "u: standard uncertainty over the Monte Carlo draws of every sample (JCGM 101:2008); the 95 % intervals of\n"
+        "all the statistics are in --json/--csv. Each sample is drawn independently: effects common to the whole lot\n"
+        "(one calibration) are understated in the means. This is how far the statistics of these samples could move\n"
+        "through the measurement, not the lot's sampling uncertainty (how far another delivery may lie)."
+    )
