@@ -18,7 +18,7 @@ from ..rating.flags import doubtful_interval_keys, doubtful_keys
 from ..verdicts.decision_rules import OUTCOMES, RULES, SIMPLE_OUTCOMES
 from ..verdicts.decision_wording import NOT_DECIDED, word_decisions
 from ..verdicts.wording import MISSING, format_uncertainty, format_value, short_status
-from .tables import Cell, Column, Table, line_mm, paragraph, paragraph_height
+from .tables import Cell, Column, Table, headed_pages, headed_paragraph, line_mm, paragraph
 
 HEAD_MM = 38.0
 TEXT_PT = 6.8
@@ -180,7 +180,7 @@ def _blocks(report):
                        + (", …" if len(crossing) > 12 else "") + " a validity limit or the category changes (see "
                        "their flags): those intervals mix valid and doubtful values and are shown in parentheses."))
     blocks.append(("Caution", CAUTION_WORDS))
-    return blocks
+    return [(head, text, LAMP if head == "Caution" else INK) for head, text in blocks]
 
 
 def _decision_rows(report):
@@ -216,17 +216,12 @@ class UncertaintyPages:
 
             width = report.paper.width_mm - 2 * MARGIN_MM
             room = report.paper.height_mm - 2 * MARGIN_MM - HEADER_MM - FOOTER_MM
-            pages, used = [], room
-            for head, text in _blocks(report) if draws_of(report) is not None else ():
-                height = paragraph_height(text, width - HEAD_MM, size=TEXT_PT) + GAP_MM
-                if used + height > room:
-                    pages.append([])
-                    used = 0.0
-                pages[-1].append((head, text))
-                used += height
-            rows = _decision_rows(report) if pages else []
+            pages, used, rows = [], 0.0, []
+            if draws_of(report) is not None:
+                pages, used = headed_pages(_blocks(report), HEAD_MM, width - HEAD_MM, room, size=TEXT_PT, gap_mm=GAP_MM)
+                rows = _decision_rows(report)
+            heading = line_mm(8.5) + 2
             while rows:  # the decisions of the lamps, on as many pages as they need
-                heading = line_mm(8.5) + 2
                 take = len(rows)
                 while take > 1 and used + heading + _decisions(rows[:take], width).height() > room:
                     take -= 1
@@ -234,7 +229,7 @@ class UncertaintyPages:
                     pages.append([])
                     used = 0.0
                     continue
-                pages[-1].append(("decisions", rows[:take]))
+                pages[-1].append(("decisions", rows[:take], None))
                 used += heading + _decisions(rows[:take], width).height() + GAP_MM
                 rows = rows[take:]
             report.cache["uncertainty_pages"] = (pages, width)
@@ -249,15 +244,14 @@ class UncertaintyPages:
             title = "Measurement uncertainty" + (", continued" if k else "")
             with sheet.page("uncertainty", title, "How sure the verdicts are: the model, the method, the decisions") as page:
                 y = sheet.top
-                for head, body in items:
+                for head, body, colour in items:
                     if head == "decisions":
                         y += paragraph(page, sheet.left, y, "Each lamp's decision beside its verdicts", width, size=8.5,
                                        weight="bold") + 2
                         y += _decisions(body, width).draw(page, sheet.left, y) + GAP_MM
-                        continue
-                    paragraph(page, sheet.left, y, head, HEAD_MM - 3, size=7.5, weight="bold",
-                              color=LAMP if head == "Caution" else INK)
-                    y += paragraph(page, sheet.left + HEAD_MM, y, body, width - HEAD_MM, size=TEXT_PT) + GAP_MM
+                    else:
+                        y += headed_paragraph(page, sheet.left, y, head, body, HEAD_MM, width - HEAD_MM, size=TEXT_PT,
+                                              head_color=colour) + GAP_MM
 
 
 PAGES = UncertaintyPages()
