@@ -31,6 +31,9 @@ MAIN_RATINGS = (
     ("E\nlx", "illuminance_lx", None), ("L\ncd/m²", "luminance_cd_per_m2", None),
     ("lamp\nlm/W", "efficacy_lm_per_W", None),
 )
+#: Beside them for a source without a CCT: its hue.
+HUE_RATINGS = (("dominant\nλ nm", "dominant_wavelength_nm", None), ("comple-\nmentary λ", "complementary_wavelength_nm", None),
+               ("purity", "excitation_purity", None))
 #: Decision -> (weight, colour) in the claims tables.
 DECISION_LOOK = {"pass": ("normal", INK), "conditional pass": ("normal", INK), "conditional fail": ("normal", LAMP),
                  "fail": ("bold", LAMP), None: ("normal", MUTED)}
@@ -83,7 +86,7 @@ def rating_table(record, width_mm):
     flags = record.get("flags") or ()
     doubt, interval_doubt = doubtful_keys(flags), doubtful_interval_keys(flags, record.get("uncertainty_flags_in_draws"))
     columns, cells = [], []
-    for header, key, index in MAIN_RATINGS:
+    for header, key, index in MAIN_RATINGS + (HUE_RATINGS if record.get("cct_K") is None else ()):
         value, u = _main_value(record, key, index), _main_value(record, key, index, "_u")
         if value is None and u is None:
             continue

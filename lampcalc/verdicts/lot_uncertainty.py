@@ -26,22 +26,27 @@ from ..colorimetry.tristimulus import xy_to_uv
 from ..rating.uncertainty import coverage_interval
 from ..standards.steps import steps_from_nominal
 from .lot import LOT_RATINGS, STEP_COUNTS, ellipse_set_of
-from .spread import STATISTICS, covariance_ellipse, describe, farthest_pair
+from .spread import STATISTICS, covariance_ellipse, describe, farthest_pair, hull_vertices
 
 #: Keys kept from every draw of every sample (R9 is read from ``ri``; the steps are the lot's own).
 KEPT = ("x", "y", "u_prime", "v_prime", *(k for k in LOT_RATINGS if k not in ("r9", "sdcm_steps")), "ri")
 #: Statistics of each rating that get an uncertainty (``n`` is a count, not a measured value).
 STATISTICS_WITH_UNCERTAINTY = tuple(s for s in STATISTICS if s != "n")
 _PAIRS_AT_ONCE = 4_000_000  # sample pairs × draws compared at once for the largest Δu′v′
+_VECTORISED_UP_TO = 64  # samples; beyond, each draw's convex hull first
 
 
 def _largest_pairwise(upvp):
-    """The largest Δu′v′ between two samples in each draw; upvp shape (n, M, 2)."""
+    """The largest Δu′v′ between two samples in each draw; upvp shape (n, M, 2).
+
+    Small lots compare every pair of every draw at once; larger ones, draw by draw, only the
+    vertices of the draw's convex hull, where the farthest pair lies.
+    """
     n, m = upvp.shape[:2]
     if n < 2:
         return np.full(m, np.nan)
-    if n * n > _PAIRS_AT_ONCE:  # large lots: the hull-based search, draw by draw
-        return np.array([farthest_pair(upvp[:, k])[0] for k in range(m)])
+    if n > _VECTORISED_UP_TO:
+        return np.array([farthest_pair(upvp[hull_vertices(upvp[:, k]), k])[0] for k in range(m)])
     step = max(1, _PAIRS_AT_ONCE // (n * n))
     out = np.empty(m)
     for start in range(0, m, step):

@@ -69,7 +69,9 @@ def test_the_largest_pairwise_distance_is_the_same_by_blocks_and_draw_by_draw(si
     upvp = np.stack([kept["u_prime"], kept["v_prime"]], axis=-1)
     direct = np.array([farthest_pair(upvp[:, m])[0] for m in range(DRAWS)])
     np.testing.assert_allclose(module._largest_pairwise(upvp), direct, rtol=1e-12)
-    monkeypatch.setattr(module, "_PAIRS_AT_ONCE", 10)  # the path of large lots
+    monkeypatch.setattr(module, "_PAIRS_AT_ONCE", 100)  # a few draws at a time
+    np.testing.assert_allclose(module._largest_pairwise(upvp), direct, rtol=1e-12)
+    monkeypatch.setattr(module, "_VECTORISED_UP_TO", 2)  # the path of large lots: each draw's hull
     np.testing.assert_allclose(module._largest_pairwise(upvp), direct, rtol=1e-12)
     assert lot["max_pairwise_delta_uv_prime_u"] == pytest.approx(np.std(direct, ddof=1), rel=1e-9)
 
