@@ -1,0 +1,293 @@
+"""Large text tables of spectra: numbers parsed by NumPy, values kept on disk, lamps read in chunks.
+
+A supplier's database export or a goniospectroradiometer's run is one plain table of
+thousands to millions of lamps: one lamp per column (a wide CSV) or one lamp per row (a
+long CSV). For such a file (:data:`FAST_MIN_BYTES` and more) the lines before the table and
+its first rows go through the careful reader (:mod:`~lampcalc.io.spectrum_table`), which
+finds the layout, the names, units and metadata; the numbers are then parsed by NumPy's
+text reader (``numpy.loadtxt``, C) a block of lines at a time and written to a temporary
+file that has no name on disk (removed by the system when the file closes, also when
+lampcalc is interrupted or killed). Every check of the careful reader is made, on the
+whole file, before any lamp is handed on: a file is rated whole or refused whole.
+
+Anything that is not a plain table (quotes, decimal commas, comment or footer lines among
+the numbers, a ragged row, a cell NumPy cannot read, NaN, another encoding) sends the file
+back to the careful reader, so that the user gets its exact one-line message.
+"""
+
+import tempfile
+
+import numpy as np
+
+from ..spectra.batch import SpectralBatch
+from .delimited_text import text_rows
+from .spectrum_checks import NEGATIVE_NOISE_LIMIT, Where, check_names, lamp_sources, value_problem
+from .spectrum_table import ParsedNumbers, find_start, table_frame
+from .text_cells import COMMENT_MARKS, looks_numeric, parse_number
+
+#: Text files at least this large are read by this module; smaller ones by the careful reader.
+FAST_MIN_BYTES = 4 << 20
+#: Lines read with the careful reader at most to find the table (metadata, header, first rows).
+HEAD_LINES = 200
+#: Text parsed by NumPy in one go, bytes (a block of lines).
+BLOCK_BYTES = 32 << 20
+_DATA_START = frozenset(b"0123456789+-.")
+# Bytes that make a line not plain: quotes, and the line breaks of str.splitlines other than \n.
+_ODD_BYTES = (b'"', b"\x0b", b"\x0c", b"\x1c", b"\x1d", b"\x1e")
+
+
+class _NotPlain(Exception):
+    """The file is not a plain table: the careful reader takes it."""
+
+
+def _odd(raw):
+    return any(b in raw for b in _ODD_BYTES) or b"\r" in raw.rstrip(b"\r\n")
+
+
+def _head(handle):
+    """The first lines of the file (text), up to three numeric lines in a row or :data:`HEAD_LINES`."""
+    start = handle.read(4)
+    if start[:2] in (b"\xff\xfe", b"\xfe\xff") or b"\x00" in start or start[:2] == b"PK":
+        raise _NotPlain
+    handle.seek(3 if start[:3] == b"\xef\xbb\xbf" else 0)
+    lines, numeric = [], 0
+    while len(lines) < HEAD_LINES and numeric < 3:
+        raw = handle.readline()
+        if not raw:
+            break
+        if _odd(raw.replace(b'"', b"")):
+            raise _NotPlain
+        try:
+            lines.append(raw.decode("utf-8").rstrip("\r\n"))
+        except UnicodeDecodeError:
+            raise _NotPlain from None
+        first = raw.lstrip()[:1]
+        numeric = numeric + 1 if first and first[0] in _DATA_START else 0
+    return lines
+
+
+class LargeText:
+    """The spectra of one large text table, checked, their values in a temporary file.
+
+    Use :func:`open_large_text`; then :meth:`chunks` hands out the lamps in order as
+    :class:`SpectralBatch` objects on the file's wavelengths, and :meth:`close` (or a
+    ``with`` block) removes the values from the disk.
+    """
+
+    def __init__(self, where, frame, layout, spool, n_wavelengths, raw_min):
+        self.where, self.frame, self.layout = where, frame, layout
+        self.spool, self.n_wavelengths = spool, n_wavelengths
+        self.negative = raw_min < 0
+        self.n_lamps = len(frame.names)
+
+    def __enter__(self):
+        return self
+
+    def __exit__(self, *exc):
+        self.close()
+        return False
+
+    def close(self):
+        """Remove the values from the disk."""
+        self.spool.close()
+
+    def _values(self, a, b):
+        n, m = self.n_lamps, self.n_wavelengths
+        if self.layout == "columns":  # wavelength by wavelength on disk, as the file's rows
+            disk = np.memmap(self.spool, dtype=float, mode="r", shape=(m, n))
+            values = np.array(disk[:, a:b].T)
+        else:
+            disk = np.memmap(self.spool, dtype=float, mode="r", shape=(n, m))
+            values = np.array(disk[a:b])
+        del disk  # unmapped: the pages read leave the process
+        return values
+
+    def chunks(self, n_lamps):
+        """Batches of at most ``n_lamps`` lamps each, in the file's order."""
+        f = self.frame
+        for a in range(0, self.n_lamps, n_lamps):
+            b = min(a + n_lamps, self.n_lamps)
+            values = np.clip(self._values(a, b) * f.scales[a:b, None], 0.0, None)
+            yield SpectralBatch(
+                wavelength_nm=f.wavelength_nm,
+                values=values,
+                names=f.names[a:b],
+                quantity=f.quantities[a:b],
+                sources=lamp_sources(self.where, f.lamp_places[a:b], f.units[a:b]),
+                electrical_W=None if f.watts is None else f.watts[a:b],
+                flags=[("negative_noise_clipped",) if neg else () for neg in self.negative[a:b]],
+                angle_deg=f.angles[a:b],
+            )
+
+    def whole(self):
+        """Every lamp in one batch (in memory)."""
+        return SpectralBatch.concatenate(list(self.chunks(max(self.n_lamps, 1))))
+
+
+def _blocks(handle, first):
+    """Blocks of ``(line number, bytes)`` of the data lines, about :data:`BLOCK_BYTES` each."""
+    block, size, number = [], 0, first
+    for raw in handle:
+        number += 1
+        if not raw.strip():
+            continue  # blank lines are passed over, as the careful reader does
+        if _odd(raw):
+            raise _NotPlain
+        block.append((number, raw))
+        size += len(raw)
+        if size >= BLOCK_BYTES:
+            yield block
+            block, size = [], 0
+    if block:
+        yield block
+
+
+def _parse(lines, delimiter, width):
+    """The numbers of data lines (bytes), shape (len(lines), width); _NotPlain for anything odd."""
+    if not all(line.isascii() for line in lines):
+        raise _NotPlain
+    text = [line.decode("ascii") for line in lines]
+    if any(t.lstrip().startswith(COMMENT_MARKS) for t in text):
+        raise _NotPlain
+    try:
+        data = np.loadtxt(text, delimiter=delimiter, dtype=float, comments=None, quotechar=None, ndmin=2)
+    except ValueError:
+        raise _NotPlain from None
+    if data.shape[1] != width or not np.all(np.isfinite(data)):
+        raise _NotPlain
+    return data
+
+
+def _split_labels(lines, delimiter):
+    """The first cells of lamp rows and the rest of each line."""
+    labels, rest = [], []
+    for line in lines:
+        if delimiter is None:
+            parts = line.split(None, 1)
+            label, numbers = parts[0], parts[1] if len(parts) > 1 else b""
+        else:
+            label, _, numbers = line.partition(delimiter.encode())
+        try:
+            labels.append(label.decode("utf-8").strip())
+        except UnicodeDecodeError:
+            raise _NotPlain from None
+        rest.append(numbers)
+    if any(not label or looks_numeric(label) for label in labels):
+        raise _NotPlain  # the careful reader ends the table there
+    return labels, rest
+
+
+def _spool_body(handle, rows, start, layout, width, spool, n_head_lines):
+    """Parse the table's lines into ``spool``; returns wavelengths, labels, line numbers and per-lamp min, max, argmin."""
+    delimiter = rows.delimiter
+    joiner = delimiter or " "
+    head = list(zip(rows.numbers[start:], rows.cells[start:]))
+    numbers = []
+    if layout == "rows":
+        numbers.append(head[0][0])
+        head = head[1:]
+    first = [[(n, joiner.join(str(c) for c in cells).encode()) for n, cells in head]] if head else []
+    labels, wavelengths, lows, highs, ats = [], [], [], [], []
+    seen = 0
+    for block in _chain(first, _blocks(handle, n_head_lines)):
+        lines = [raw for _, raw in block]
+        numbers.extend(n for n, _ in block)
+        if layout == "rows":
+            block_labels, lines = _split_labels(lines, delimiter)
+            labels.extend(block_labels)
+            data = _parse(lines, delimiter, width - 1)
+            lows.append(data.min(axis=1))
+            highs.append(data.max(axis=1))
+            ats.append(data.argmin(axis=1))
+        else:
+            data = _parse(lines, delimiter, width)
+            wavelengths.append(data[:, 0])
+            data = np.ascontiguousarray(data[:, 1:])
+            lo, hi, at = data.min(axis=0), data.max(axis=0), data.argmin(axis=0) + seen
+            seen += data.shape[0]
+            if lows:  # on a tie the earlier wavelength stays the minimum's place, as argmin's
+                lower = lo < lows[0]
+                lows[0], highs[0], ats[0] = np.where(lower, lo, lows[0]), np.maximum(highs[0], hi), np.where(lower, at, ats[0])
+            else:
+                lows, highs, ats = [lo], [hi], [at]
+        spool.write(data.tobytes())
+    spool.flush()
+    if not lows:
+        raise _NotPlain
+    wl = np.concatenate(wavelengths) if wavelengths else None
+    return wl, labels, numbers, (np.concatenate(lows), np.concatenate(highs), np.concatenate(ats))
+
+
+def _chain(first, rest):
+    yield from first
+    yield from rest
+
+
+def open_large_text(path, *, wavelength_unit=None, quantity=None):
+    """The spectra of a large plain text table as a :class:`LargeText`, or None for the careful reader.
+
+    None when the file is under :data:`FAST_MIN_BYTES` or is not a plain table (see the
+    module docstring); :func:`~lampcalc.io.spectrum_files.read_spectra` then reads it.
+
+    Raises
+    ------
+    InputError
+        The careful reader's message for a plain table it would refuse (a wavelength that
+        does not increase, a zero or negative spectrum, a lamp name used twice, metadata).
+    """
+    from pathlib import Path
+
+    from ..errors import InputError
+
+    where = Where(path)
+    try:
+        if not Path(path).is_file() or Path(path).stat().st_size < FAST_MIN_BYTES:
+            return None
+    except OSError:
+        return None
+    spool = tempfile.TemporaryFile(prefix="lampcalc-spectra-")
+    parsed = None
+    try:
+        with open(path, "rb") as handle:
+            lines = _head(handle)
+            rows = text_rows("\n".join(lines), where)
+            start, layout = find_start(rows)
+            if start is None or rows.decimal_comma or rows.broken or start + 1 >= len(rows.cells):
+                raise _NotPlain
+            width = len(rows.cells[start])
+            wl, labels, numbers, stats = _spool_body(handle, rows, start, layout, width, spool, len(lines))
+        if layout == "rows":
+            wl = np.array([parse_number(c) for c in rows.cells[start][1:]])
+        rows.numbers[start:] = numbers
+        rows.cells[start + 1 :] = [[]] * (len(numbers) - 1)
+        parsed = ParsedNumbers(end=start + len(numbers), labels=labels, wavelengths=wl)
+        frame, _ = table_frame(rows, where, Path(str(path)).stem, parsed=parsed, wavelength_unit=wavelength_unit,
+                               quantity=quantity)
+        large = _checked(where, frame, layout, spool, stats)
+    except (_NotPlain, ValueError):
+        spool.close()
+        return None
+    except InputError:
+        spool.close()
+        if parsed is None:  # in the first lines only: the careful reader reads the whole file
+            return None
+        raise
+    except BaseException:
+        spool.close()
+        raise
+    return large
+
+
+def _checked(where, frame, layout, spool, stats):
+    """The careful reader's checks of values and names, in its order, on the whole table."""
+    lo, hi, at = stats
+    low, high = lo * frame.scales, hi * frame.scales
+    if not (np.all(np.isfinite(low)) and np.all(np.isfinite(high))):
+        raise _NotPlain  # beyond a float once scaled: the careful reader says where
+    bad = np.flatnonzero((high <= 0) | (low < -NEGATIVE_NOISE_LIMIT * high))
+    if bad.size:
+        k = int(bad[0])
+        raise value_problem(k, float(high[k]), int(at[k]), low[k], frame.wavelength_nm, frame.names,
+                            frame.lamp_places, frame.value_place, where)
+    check_names(frame.names, frame.lamp_places, where)
+    return LargeText(where, frame, layout, spool, frame.wavelength_nm.size, lo)
