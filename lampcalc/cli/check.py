@@ -6,21 +6,14 @@ import click
 
 from ..io.formats import SPECTRUM_SUFFIXES
 from ..report.caution import CAUTION
-from .common import (
-    Failure,
-    collect_files,
-    fail_on_input_errors,
-    rate_batches,
-    read_sets,
-    read_some,
-    set_options,
-    spectrum_options,
-)
+from .common import Failure, collect_files, fail_on_input_errors, read_sets, set_options, spectrum_options, workers_option
 from .outputs import prepare_outputs, write_outputs
-from .printouts import TABLE_NOTES, flag_legend, rating_table, verdict_text
+from .printouts import TABLE_NOTES, legend_of, rating_table, verdict_text
+from .spectra_stream import lamp_stream
 
 
-def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi", quiet_table=False, **reading):
+def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi", quiet_table=False, workers=1,
+                    **reading):
     """Read claims and spectra, check, print and write. Returns the exit status (0, 1 or 2) and the ratings.
 
     ``sets``: (bin set, ellipse set) from :func:`~lampcalc.cli.common.read_sets`; the shipped
@@ -28,30 +21,43 @@ def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi
     spectrum (the other lamps are still checked), 1 when a claim does not hold or cannot be
     shown to.
     """
+    from ..rating.streaming import join_ratings, lamp_chunks, rate_chunks
+    from ..rating.tally import RunTally
     from ..verdicts.claims import check_claims, duplicate_names, read_claims
 
     bin_set, ellipse_set = sets or read_sets()
     claims = read_claims(claims_path)
-    batches, errors = read_some(files, **reading)
     nominal = {}
     for claim in claims.values():
         if "nominal_cct_K" in claim.values:
             nominal[claim.lamp.casefold()] = claim.values["nominal_cct_K"]
-    ratings = rate_batches(batches, nominal, (bin_set, ellipse_set))
+    errors, tally, parts = [], RunTally(), []
+    # The verdicts need every lamp's ratings (not their spectra, unless the report draws them).
+    with lamp_stream(files, errors, **reading) as (stream, progress):
+        for part in rate_chunks(lamp_chunks(stream), workers=workers, nominal=nominal, bin_set=bin_set,
+                                ellipse_set=ellipse_set, keep_extras="report" in (outputs or {})):
+            parts.append(part)
+            tally.add(part)
+            progress.rated(len(part))
+    for message in errors:
+        click.echo(f"lampcalc: {message}", err=True)
+    if not parts:
+        raise Failure("no spectrum could be read")
+    ratings = join_ratings(parts)
     verdicts = check_claims(
         claims, ratings, claims_path, ellipse_set=ellipse_set, sdcm_centre=centre, bin_set=bin_set
     )
     if not quiet_table:
-        click.echo(rating_table(ratings))
+        click.echo(rating_table(*tally.shown(), tally.count))
         click.echo(TABLE_NOTES)
-        if legend := flag_legend(ratings):
+        if legend := legend_of(tally.flags.lamps):
             click.echo("Flags:\n" + legend)
         click.echo()
     click.echo(verdict_text(verdicts))
     click.echo("\n" + verdicts.summary())
     write_outputs(ratings, verdicts, outputs or {})
     click.echo(CAUTION)
-    duplicates = duplicate_names(ratings)
+    duplicates = duplicate_names(tally.repeated_names())
     if duplicates:
         click.echo(f"lampcalc: note: {duplicates}", err=True)
     for lamp in verdicts.lamps:
@@ -85,10 +91,11 @@ def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi
     help="Centre of the steps: ANSI C78.377 target of the nominal CCT, or the ellipse set's own centre (IEC 60081's F2700...).",
 )
 @set_options
+@workers_option
 @spectrum_options
 @fail_on_input_errors
 def check(paths, claims_path, json_out, csv_out, xlsx_out, report_out, steps, centre, recursive, bins, ellipses,
-          **reading):
+          workers, **reading):
     """Check a supplier's claims against the spectra: one verdict per claim.
 
     Lamps are matched to claims by name, without regard to case; the claims file is never
@@ -100,6 +107,7 @@ def check(paths, claims_path, json_out, csv_out, xlsx_out, report_out, steps, ce
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
     outputs = prepare_outputs([*files, claims_path], json=json_out, csv=csv_out, xlsx=xlsx_out, report=report_out)
     status, _ = check_and_write(
-        files, claims_path, outputs=outputs, sets=read_sets(bins, ellipses, steps), centre=centre, **reading
+        files, claims_path, outputs=outputs, sets=read_sets(bins, ellipses, steps), centre=centre, workers=workers,
+        **reading,
     )
     sys.exit(status)

@@ -4,11 +4,8 @@ Its JSON and CSV forms use the keys of :data:`FIELDS`, documented in
 ``docs/output-fields.md``.
 """
 
-import csv
-import io
-import json
-
-from ..io.serialise import cell, plain
+from ..io.serialise import plain
+from ..io.streamed_tables import csv_of_columns, json_of_columns
 
 #: Output fields in order: key -> description (with unit). Lists are noted as such.
 FIELDS = {
@@ -120,17 +117,14 @@ class Ratings:
         keys = [k for k in FIELDS if k in self.columns]
         return [{k: plain(self.columns[k][i]) for k in keys} for i in range(len(self))]
 
+    def output_columns(self):
+        """The columns of :data:`FIELDS` present, in order: what the JSON and CSV forms hold."""
+        return {k: self.columns[k] for k in FIELDS if k in self.columns}
+
     def to_json(self):
         """JSON text: a list with one object per lamp."""
-        return json.dumps(self.records(), indent=1, allow_nan=False) + "\n"
+        return json_of_columns(self.output_columns())
 
     def to_csv(self):
         """CSV text: one row per lamp; list fields are joined with ';'."""
-        records = self.records()
-        keys = [k for k in FIELDS if k in self.columns]
-        out = io.StringIO()
-        writer = csv.writer(out, lineterminator="\n")
-        writer.writerow(keys)
-        for rec in records:
-            writer.writerow([cell(rec[k]) for k in keys])
-        return out.getvalue()
+        return csv_of_columns(self.output_columns())
