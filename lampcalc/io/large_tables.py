@@ -259,7 +259,7 @@ def open_large_text(path, *, wavelength_unit=None, quantity=None):
         if layout == "rows":
             wl = np.array([parse_number(c) for c in rows.cells[start][1:]])
         rows.numbers[start:] = numbers
-        rows.cells[start + 1 :] = [[]] * (len(numbers) - 1)
+        rows.cells += [[]] * (start + len(numbers) - len(rows.cells))  # the rows past the head: parsed above
         parsed = ParsedNumbers(end=start + len(numbers), labels=labels, wavelengths=wl)
         frame, _ = table_frame(rows, where, Path(str(path)).stem, parsed=parsed, wavelength_unit=wavelength_unit,
                                quantity=quantity)

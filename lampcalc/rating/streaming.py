@@ -19,8 +19,9 @@ from .ratings import Ratings
 CHUNK_LAMPS = 2000
 
 
-def lamp_chunks(batches, n_lamps=CHUNK_LAMPS):
-    """Batches (on one wavelength grid) regrouped into chunks of ``n_lamps`` lamps, the last one smaller."""
+def lamp_chunks(batches, n_lamps=None):
+    """Batches (on one wavelength grid) regrouped into chunks of ``n_lamps`` (:data:`CHUNK_LAMPS`), the last one smaller."""
+    n_lamps = n_lamps or CHUNK_LAMPS
     pending, count = [], 0
     for batch in batches:
         start = 0
