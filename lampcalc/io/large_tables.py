@@ -7,7 +7,7 @@ its first rows go through the careful reader (:mod:`~lampcalc.io.spectrum_table`
 finds the layout, the names, units and metadata; the numbers are then parsed by NumPy's
 text reader (``numpy.loadtxt``, C) a block of lines at a time and written to a temporary
 file that has no name on disk (removed by the system when the file closes, also when
-lampcalc is interrupted or killed). Every check of the careful reader is made, on the
+lampcalc is interrupted or killed), from which each chunk of lamps is read back. Every check of the careful reader is made, on the
 whole file, before any lamp is handed on: a file is rated whole or refused whole.
 
 Anything that is not a plain table (quotes, decimal commas, comment or footer lines among
@@ -30,7 +30,7 @@ FAST_MIN_BYTES = 4 << 20
 #: Lines read with the careful reader at most to find the table (metadata, header, first rows).
 HEAD_LINES = 200
 #: Text parsed by NumPy in one go, bytes (a block of lines).
-BLOCK_BYTES = 32 << 20
+BLOCK_BYTES = 8 << 20
 _DATA_START = frozenset(b"0123456789+-.")
 # Bytes that make a line not plain: quotes, and the line breaks of str.splitlines other than \n.
 _ODD_BYTES = (b'"', b"\x0b", b"\x0c", b"\x1c", b"\x1d", b"\x1e")
@@ -92,15 +92,20 @@ class LargeText:
         self.spool.close()
 
     def _values(self, a, b):
-        n, m = self.n_lamps, self.n_wavelengths
+        """Lamps ``a`` to ``b`` from the disk, shape (b - a, n_wavelengths).
+
+        Read with ``pread`` rather than mapped: pages of a mapped file count in the process's
+        resident memory, and the kernel maps them generously for a column cut across rows.
+        """
+        import os
+
+        n, m, size = self.n_lamps, self.n_wavelengths, np.dtype(float).itemsize
+        fd = self.spool.fileno()
         if self.layout == "columns":  # wavelength by wavelength on disk, as the file's rows
-            disk = np.memmap(self.spool, dtype=float, mode="r", shape=(m, n))
-            values = np.array(disk[:, a:b].T)
-        else:
-            disk = np.memmap(self.spool, dtype=float, mode="r", shape=(n, m))
-            values = np.array(disk[a:b])
-        del disk  # unmapped: the pages read leave the process
-        return values
+            rows = [os.pread(fd, (b - a) * size, (i * n + a) * size) for i in range(m)]
+            return np.frombuffer(b"".join(rows), dtype=float).reshape(m, b - a).T.copy()
+        data = os.pread(fd, (b - a) * m * size, a * m * size)
+        return np.frombuffer(data, dtype=float).reshape(b - a, m).copy()
 
     def chunks(self, n_lamps):
         """Batches of at most ``n_lamps`` lamps each, in the file's order."""
@@ -201,7 +206,7 @@ def _spool_body(handle, rows, start, layout, width, spool, n_head_lines):
             ats.append(data.argmin(axis=1))
         else:
             data = _parse(lines, delimiter, width)
-            wavelengths.append(data[:, 0])
+            wavelengths.append(data[:, 0].copy())  # not a view: it would keep the whole block
             data = np.ascontiguousarray(data[:, 1:])
             lo, hi, at = data.min(axis=0), data.max(axis=0), data.argmin(axis=0) + seen
             seen += data.shape[0]

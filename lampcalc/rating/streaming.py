@@ -14,9 +14,9 @@ from ..spectra.batch import SpectralBatch
 from .rate import rate_spectra
 from .ratings import Ratings
 
-#: Lamps rated together. NumPy runs at full speed from a few hundred lamps on; a chunk of
-#: 2,000 lamps needs about 100 MB while it is rated (benchmarks/bench_scale.py).
-CHUNK_LAMPS = 2000
+#: Lamps rated together. NumPy runs fastest with a few hundred to a thousand lamps a call (larger
+#: batches leave the caches: 4,000 lamps rate about a third slower; benchmarks/bench_scale.py).
+CHUNK_LAMPS = 1000
 
 
 def lamp_chunks(batches, n_lamps=None):
