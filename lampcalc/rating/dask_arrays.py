@@ -107,10 +107,9 @@ def rate_dask_array(spectra, wavelength_nm, *, quantity="relative", interpolatio
     ValueError
         For a last axis that does not match ``wavelength_nm``.
     """
-    try:
-        import dask.array as da
-    except ImportError:
-        raise ImportError("rate_dask_array needs dask: pip install 'lampcalc[dask]'") from None
+    from .optional import optional_import
+
+    da = optional_import("dask.array", "dask", "rate_dask_array")
     wl = np.asarray(wavelength_nm, dtype=float)
     spectra = da.asarray(spectra)
     if spectra.ndim < 1 or spectra.shape[-1] != wl.size:

@@ -32,12 +32,12 @@ def rate_in_processes(chunks, workers, rate, **options):
     ImportError
         When dask is not installed, naming the extra that installs it.
     """
-    try:
-        import dask
-    except ImportError:
-        raise ImportError("rating in several processes needs dask: pip install 'lampcalc[dask]'") from None
     import multiprocessing
     from concurrent.futures import ProcessPoolExecutor, ThreadPoolExecutor
+
+    from .optional import optional_import
+
+    dask = optional_import("dask", "dask", "rating in several processes")
 
     # "spawn": fresh interpreters, safe whatever threads this process runs (BLAS, the progress bar).
     pool = ProcessPoolExecutor(workers, mp_context=multiprocessing.get_context("spawn"))

@@ -62,11 +62,9 @@ def to_pandas(ratings):
     ImportError
         When pandas is not installed, naming the extra that installs it.
     """
-    try:
-        import pandas
-    except ImportError:
-        raise ImportError("Ratings.to_pandas needs pandas: pip install 'lampcalc[pandas]'") from None
-    return pandas.DataFrame(wide_columns(ratings))
+    from .optional import optional_import
+
+    return optional_import("pandas", "pandas", "Ratings.to_pandas").DataFrame(wide_columns(ratings))
 
 
 class FlagLamps:
