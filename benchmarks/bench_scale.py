@@ -114,7 +114,7 @@ def in_process_rate(path, source=None):
 
 def main():
     parser = argparse.ArgumentParser(description=__doc__.splitlines()[0])
-    parser.add_argument("--sizes", type=int, nargs="+", default=[1000, 10_000, 100_000])
+    parser.add_argument("--sizes", type=int, nargs="*", default=[1000, 10_000, 100_000])
     parser.add_argument("--files-up-to", type=int, default=10_000, help="largest size also run as many files")
     parser.add_argument("--workers-from", type=int, default=10_000, help="smallest size also run with --workers 2")
     parser.add_argument("--million", action="store_true", help="also rate a 1,000,000-lamp wide CSV (once)")

@@ -44,17 +44,20 @@ def _odd(raw):
     return any(b in raw for b in _ODD_BYTES) or b"\r" in raw.rstrip(b"\r\n")
 
 
-def _head(handle):
-    """The first lines of the file (text), up to three numeric lines in a row or :data:`HEAD_LINES`."""
+def _start(handle):
+    """Skip a UTF-8 byte-order mark; _NotPlain for UTF-16, binary files and zip archives."""
     start = handle.read(4)
     if start[:2] in (b"\xff\xfe", b"\xfe\xff") or b"\x00" in start or start[:2] == b"PK":
         raise _NotPlain
     handle.seek(3 if start[:3] == b"\xef\xbb\xbf" else 0)
-    lines, numeric = [], 0
-    while len(lines) < HEAD_LINES and numeric < 3:
+
+
+def _head_lines(handle, lines):
+    """Add lines (text) to ``lines`` up to the next that starts with a number; False at the end of the file."""
+    while len(lines) < HEAD_LINES:
         raw = handle.readline()
         if not raw:
-            break
+            return False
         if _odd(raw.replace(b'"', b"")):
             raise _NotPlain
         try:
@@ -62,8 +65,25 @@ def _head(handle):
         except UnicodeDecodeError:
             raise _NotPlain from None
         first = raw.lstrip()[:1]
-        numeric = numeric + 1 if first and first[0] in _DATA_START else 0
-    return lines
+        if first and first[0] in _DATA_START:
+            return True
+    return False
+
+
+def _table_head(handle, where):
+    """The first lines, read until the careful reader finds the table in them: (lines, rows, start, layout).
+
+    A wide table's head ends at its first row of numbers (its other rows are parsed by NumPy);
+    a long table's holds up to :data:`HEAD_LINES` lines.
+    """
+    _start(handle)
+    lines = []
+    while True:
+        more = _head_lines(handle, lines)
+        rows = text_rows("\n".join(lines), where)
+        start, layout = find_start(rows)
+        if layout == "columns" or not more:
+            return lines, rows, start, layout
 
 
 class LargeText:
@@ -208,13 +228,14 @@ def _spool_body(handle, rows, start, layout, width, spool, n_head_lines):
             data = _parse(lines, delimiter, width)
             wavelengths.append(data[:, 0].copy())  # not a view: it would keep the whole block
             data = np.ascontiguousarray(data[:, 1:])
-            lo, hi, at = data.min(axis=0), data.max(axis=0), data.argmin(axis=0) + seen
-            seen += data.shape[0]
-            if lows:  # on a tie the earlier wavelength stays the minimum's place, as argmin's
-                lower = lo < lows[0]
-                lows[0], highs[0], ats[0] = np.where(lower, lo, lows[0]), np.maximum(highs[0], hi), np.where(lower, at, ats[0])
-            else:
-                lows, highs, ats = [lo], [hi], [at]
+            if not lows:
+                lows, highs, ats = [data[0].copy()], [data[0].copy()], [np.zeros(width - 1, dtype=np.intp)]
+            for row in data:  # row by row over all lamps: fast where a column-wise reduction is not
+                lower = row < lows[0]  # strictly: on a tie the first wavelength stays, as argmin's
+                np.copyto(lows[0], row, where=lower)
+                np.copyto(ats[0], seen, where=lower)
+                np.maximum(highs[0], row, out=highs[0])
+                seen += 1
         spool.write(data.tobytes())
     spool.flush()
     if not lows:
@@ -254,13 +275,13 @@ def open_large_text(path, *, wavelength_unit=None, quantity=None):
     parsed = None
     try:
         with open(path, "rb") as handle:
-            lines = _head(handle)
-            rows = text_rows("\n".join(lines), where)
-            start, layout = find_start(rows)
-            if start is None or rows.decimal_comma or rows.broken or start + 1 >= len(rows.cells):
+            lines, rows, start, layout = _table_head(handle, where)
+            if start is None or rows.decimal_comma or rows.broken:
                 raise _NotPlain
             width = len(rows.cells[start])
             wl, labels, numbers, stats = _spool_body(handle, rows, start, layout, width, spool, len(lines))
+        if layout == "columns":  # the first rows' cells are on disk now: keep only what finds the table
+            rows.cells[start:] = [[rows.cells[start][0]] + [""] * (width - 1)]
         if layout == "rows":
             wl = np.array([parse_number(c) for c in rows.cells[start][1:]])
         rows.numbers[start:] = numbers

@@ -14,6 +14,7 @@ The table ends at the first row that does not continue it; text after it (a foot
 ignored, numbers after it are refused.
 """
 
+from collections.abc import Sequence
 from dataclasses import dataclass, field
 
 import numpy as np
@@ -173,6 +174,23 @@ def _quantities(units, meta_quantity, override, places, where):
     return tuple(quantities), np.array(scales)
 
 
+class Places(Sequence):
+    """Where each lamp stands (``"column 3"``), made when asked: a million lamps need no million strings."""
+
+    def __init__(self, place, n):
+        self.place, self.n = place, n
+
+    def __len__(self):
+        return self.n
+
+    def __getitem__(self, k):
+        if isinstance(k, slice):
+            return [self.place(i) for i in range(*k.indices(self.n))]
+        if not -self.n <= k < self.n:
+            raise IndexError(k)
+        return self.place(k % self.n)
+
+
 @dataclass
 class TableFrame:
     """Everything of a table but its values: lamps, their units and places, wavelengths in nm.
@@ -187,7 +205,7 @@ class TableFrame:
     quantities: tuple
     scales: np.ndarray  # per lamp: file values times scale are in the units of its quantity
     units: list  # per lamp, the unit its values were given in (None when relative)
-    lamp_places: list
+    lamp_places: Sequence
     value_place: callable  # (k, i) -> place of lamp k's value at wavelength i
     watts: list
     angles: np.ndarray
@@ -272,7 +290,7 @@ def table_frame(rows, where, stem, *, wavelength_unit=None, quantity=None, parse
             data = _numbers(rows, range(start, end), 0, where, lambda r, c: names_row[c] if names_row and c else None)
             wl, values = data[:, 0], data[:, 1:].T
         wl_places = [rows.cell_place(r, 0) for r in range(start, end)]
-        lamp_places = [rows.column_place(start, c) for c in range(1, width)]
+        lamp_places = Places(lambda k: rows.column_place(start, k + 1), width - 1)
         value_place = lambda k, i: rows.cell_place(start + i, k + 1)  # noqa: E731
         label_cells = rows.cells[header_row] if header_row is not None else [""] * width
         unit_cells = rows.cells[unit_row] if unit_row is not None else None
@@ -287,7 +305,7 @@ def table_frame(rows, where, stem, *, wavelength_unit=None, quantity=None, parse
             data = _numbers(rows, range(start, end), 1, where, lambda r, c: rows.cells[r][0] if r > start else None)
             wl, values = data[0], data[1:]
         wl_places = [rows.cell_place(start, c) for c in range(1, width)]
-        lamp_places = [rows.row_place(r) for r in range(start + 1, end)]
+        lamp_places = Places(lambda k: rows.row_place(start + 1 + k), end - start - 1)
         value_place = lambda k, i: rows.cell_place(start + 1 + k, i + 1)  # noqa: E731
         labels = parsed.labels if parsed else [rows.cells[r][0] for r in range(start + 1, end)]
         label_cells = [rows.cells[start][0], *labels]

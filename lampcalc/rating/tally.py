@@ -3,8 +3,10 @@
 A run of a million lamps writes every rating to its files as the chunks come; the terminal
 shows only the first and last lamps (:data:`SHOWN`), the words of every flag raised, and a
 note on names that two spectra carry. :class:`RunTally` gathers exactly that, in memory
-that grows by about 8 bytes and the text of a name and a source per lamp.
+that grows by about 8 bytes and the compressed text of a name and a source per lamp.
 """
+
+import zlib
 
 import numpy as np
 
@@ -41,8 +43,10 @@ class RunTally:
         self.flags.add(names, ratings["flags"])
         self._hashes.append(np.array([hash(name.casefold()) for name in names], dtype=np.int64))
         joined = (_SEPARATOR.join(names), _SEPARATOR.join(sources))
-        plain = all(text.count(_SEPARATOR) == n - 1 for text in joined)
-        self._names.append(joined if plain else (tuple(names), tuple(sources)))
+        if all(text.count(_SEPARATOR) == n - 1 for text in joined):  # sources repeat their path: zlib packs them
+            self._names.append(tuple(zlib.compress(text.encode("utf-8", "surrogatepass"), 1) for text in joined))
+        else:
+            self._names.append((tuple(names), tuple(sources)))
 
     @property
     def all_shown(self):
@@ -67,8 +71,9 @@ class RunTally:
             picked = np.flatnonzero(repeated[start : start + chunk_hashes.size])
             start += chunk_hashes.size
             if picked.size:
-                if isinstance(chunk_names, str):
-                    chunk_names, chunk_sources = chunk_names.split(_SEPARATOR), chunk_sources.split(_SEPARATOR)
+                if isinstance(chunk_names, bytes):
+                    chunk_names, chunk_sources = (zlib.decompress(text).decode("utf-8", "surrogatepass").split(_SEPARATOR)
+                                                  for text in (chunk_names, chunk_sources))
                 names += [chunk_names[i] for i in picked]
                 sources += [chunk_sources[i] for i in picked]
         return {"name": names, "source": sources}
