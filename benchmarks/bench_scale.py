@@ -76,14 +76,22 @@ def _tree_rss_kb(pid):
     return total
 
 
+def _importing(source):
+    """Python code that makes ``import lampcalc`` load the checkout at ``source`` (else the installed one).
+
+    An editable install answers imports before ``sys.path`` is searched: its finder is taken out.
+    """
+    if not source:
+        return ""
+    return ("import sys; sys.meta_path[:] = [f for f in sys.meta_path if 'editable' not in "
+            f"getattr(f, '__module__', '')]; sys.path.insert(0, {str(source)!r})\n")
+
+
 def run_cli(args, source=None):
     """Wall time (s) and peak memory of the process tree (MB) of ``lampcalc ARGS``."""
-    env = dict(os.environ)
-    if source:
-        env["PYTHONPATH"] = str(source)
-    code = "import sys; from lampcalc.cli import main; sys.argv[0] = 'lampcalc'; main(sys.argv[1:])"
+    code = _importing(source) + "import sys; from lampcalc.cli import main; sys.argv[0] = 'lampcalc'; main(sys.argv[1:])"
     start = time.perf_counter()
-    child = subprocess.Popen([sys.executable, "-c", code, *map(str, args)], env=env, stdout=subprocess.DEVNULL,
+    child = subprocess.Popen([sys.executable, "-c", code, *map(str, args)], stdout=subprocess.DEVNULL,
                              stderr=subprocess.PIPE)
     peak = 0
     while child.poll() is None:
@@ -97,10 +105,7 @@ def run_cli(args, source=None):
 
 def in_process_rate(path, source=None):
     """Lamps/s of rate_spectra on the file's lamps, read and on the grid, in batches of 1,000 (own process)."""
-    env = dict(os.environ)
-    if source:
-        env["PYTHONPATH"] = str(source)
-    code = (
+    code = _importing(source) + (
         "import sys, time, lampcalc\n"
         "batch = lampcalc.read_spectra(sys.argv[1]).on_grid()\n"
         "lampcalc.rate_spectra(batch[:10])  # tables loaded, caches warm\n"
@@ -109,7 +114,7 @@ def in_process_rate(path, source=None):
         "    lampcalc.rate_spectra(batch[a : a + 1000])\n"
         "print(batch.n_lamps / (time.perf_counter() - start))\n"
     )
-    return float(subprocess.check_output([sys.executable, "-c", code, str(path)], env=env))
+    return float(subprocess.check_output([sys.executable, "-c", code, str(path)]))
 
 
 def main():
@@ -121,7 +126,9 @@ def main():
     parser.add_argument("--source", type=Path, default=None, help="run the lampcalc of this source folder")
     parser.add_argument("--dir", type=Path, default=None, help="folder for the data (default: a temporary one)")
     args = parser.parse_args()
-    print(f"load average at start: {os.getloadavg()[0]:.2f}; source: {args.source or 'installed lampcalc'}")
+    check = _importing(args.source) + "import lampcalc; print(lampcalc.__file__)"
+    used = subprocess.check_output([sys.executable, "-c", check], text=True).strip()
+    print(f"load average at start: {os.getloadavg()[0]:.2f}; lampcalc from {used}")
     print(f"{'input':<34} {'lamps':>9} {'wall s':>8} {'lamps/s':>9} {'peak MB':>8} {'in-proc/s':>9} {'ratio':>6}")
     with tempfile.TemporaryDirectory(dir=args.dir) as folder:
         folder = Path(folder)

@@ -1,5 +1,6 @@
 """``lampcalc check``: a supplier's claims against the spectra, one verdict per claim."""
 
+import contextlib
 import sys
 
 import click
@@ -33,9 +34,10 @@ def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi
             nominal[claim.lamp.casefold()] = claim.values["nominal_cct_K"]
     errors, tally, parts = [], RunTally(), []
     # The verdicts need every lamp's ratings (not their spectra, unless the report draws them).
-    with lamp_stream(files, errors, **reading) as (stream, progress):
-        for part in rate_chunks(lamp_chunks(stream), workers=workers, nominal=nominal, bin_set=bin_set,
-                                ellipse_set=ellipse_set, keep_extras="report" in (outputs or {})):
+    with lamp_stream(files, errors, **reading) as (stream, progress), \
+            contextlib.closing(rate_chunks(lamp_chunks(stream), workers=workers, nominal=nominal, bin_set=bin_set,
+                                           ellipse_set=ellipse_set, keep_extras="report" in (outputs or {}))) as rated:
+        for part in rated:
             parts.append(part)
             tally.add(part)
             progress.rated(len(part))

@@ -1,5 +1,6 @@
 """``lampcalc rate``: rate every spectrum in the files given."""
 
+import contextlib
 import sys
 
 import click
@@ -27,9 +28,10 @@ def rate_and_write(files, *, outputs=None, sets=None, workers=1, **reading):
     outputs = outputs or {}
     bin_set, ellipse_set = sets or (None, None)
     errors, tally = [], RunTally()
-    with streamed_outputs(outputs) as sink, lamp_stream(files, errors, **reading) as (stream, progress):
-        for ratings in rate_chunks(lamp_chunks(stream), workers=workers, bin_set=bin_set, ellipse_set=ellipse_set,
-                                   keep_extras="report" in outputs):
+    with streamed_outputs(outputs) as sink, lamp_stream(files, errors, **reading) as (stream, progress), \
+            contextlib.closing(rate_chunks(lamp_chunks(stream), workers=workers, bin_set=bin_set,
+                                           ellipse_set=ellipse_set, keep_extras="report" in outputs)) as rated:
+        for ratings in rated:  # closed on the way out: worker processes stop with the run
             sink.write(ratings)
             tally.add(ratings)
             progress.rated(len(ratings))

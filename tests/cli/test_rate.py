@@ -281,3 +281,37 @@ def test_nothing_rated_leaves_the_outputs_as_they_were(run, write, tmp_path):
 def test_no_progress_bar_when_piped(run, write, small_chunks):
     result = run("rate", _many_lamps(write, 8))
     assert result.exit_code == 0 and "rating spectra" not in result.stderr and result.stderr == ""
+
+
+@pytest.mark.parametrize("workers", ["1", "2"])
+def test_interrupted_stream_leaves_no_temporary_file_and_no_worker(tmp_path, write, workers):
+    # exit status 143 = 128 + SIGTERM (POSIX shells, common practice, no source)
+    import os
+    import signal
+    import subprocess
+    import sys
+    import time
+
+    if workers == "2":
+        pytest.importorskip("dask")
+    _many_lamps(write, 3000)
+    (tmp_path / "out.json").write_text("old")
+    code = "import sys; from lampcalc.cli import main; sys.argv[0] = 'lampcalc'; main(sys.argv[1:])"
+    child = subprocess.Popen([sys.executable, "-c", code, "rate", "many.csv", "--json", "out.json", "--workers", workers],
+                             cwd=tmp_path, stderr=subprocess.PIPE)
+    deadline = time.monotonic() + 60
+    while not list(tmp_path.glob(".out.json.*.tmp")):  # writing has begun
+        assert time.monotonic() < deadline and child.poll() is None
+        time.sleep(0.02)
+    time.sleep(1.0)
+    helpers = subprocess.run(["pgrep", "-P", str(child.pid)], capture_output=True, text=True).stdout.split()
+    os.kill(child.pid, signal.SIGTERM)
+    _, stderr = child.communicate(timeout=60)
+    assert child.returncode == -signal.SIGTERM or child.returncode == 143, stderr
+    assert b"interrupted" in stderr and b"Traceback" not in stderr
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["many.csv", "out.json"]
+    assert (tmp_path / "out.json").read_text() == "old"
+    deadline = time.monotonic() + 20
+    while any(os.path.exists(f"/proc/{pid}") for pid in helpers):  # worker processes end with the run
+        assert time.monotonic() < deadline, helpers
+        time.sleep(0.1)
