@@ -17,11 +17,16 @@ from .common import Failure
 
 
 class LampProgress:
-    """A progress bar over the bytes of the files, labelled with the lamps rated so far (terminal only)."""
+    """A progress bar over the bytes of the files, moved as their lamps are rated and labelled with the count.
+
+    Shown on a terminal only. A file's bytes count as done when its lamps are rated (or at
+    once, for a file that could not be read).
+    """
 
     def __init__(self, files):
         self.bar = None
         self.lamps = 0
+        self.read_bytes = self.read_lamps = self.failed_bytes = self.shown = 0
         if sys.stderr.isatty():
             total = sum(_size(f) for f in files)
             self.bar = click.progressbar(
@@ -39,16 +44,26 @@ class LampProgress:
             self.bar.__exit__(*exc)
         return False
 
-    def read(self, n_bytes):
-        """``n_bytes`` more of the input were read."""
+    def _move(self):
         if self.bar is not None:
-            self.bar.update(n_bytes, self.lamps)
+            per_lamp = self.read_bytes / self.read_lamps if self.read_lamps else 0.0
+            done = round(self.failed_bytes + per_lamp * self.lamps)
+            self.bar.update(max(done - self.shown, 0), self.lamps)
+            self.shown = max(done, self.shown)
+
+    def read(self, n_bytes, n_lamps):
+        """``n_bytes`` more of the input were read, holding ``n_lamps`` lamps (0: a file refused)."""
+        if n_lamps:
+            self.read_bytes += n_bytes
+            self.read_lamps += n_lamps
+        else:
+            self.failed_bytes += n_bytes
+            self._move()
 
     def rated(self, n_lamps):
         """``n_lamps`` more lamps were rated."""
         self.lamps += n_lamps
-        if self.bar is not None:
-            self.bar.update(0, self.lamps)
+        self._move()
 
 
 def _size(path):
@@ -80,7 +95,7 @@ def spectra_stream(files, errors, *, progress=None, piece_lamps=None, strict=Fal
                 raise Failure(str(err)) from None
             errors.append(str(err))
             if progress:
-                progress.read(_size(path))
+                progress.read(_size(path), 0)
             continue
         with spectra:
             pieces = [spectra.whole()] if spectra.n_lamps <= piece_lamps else spectra.chunks(piece_lamps)
@@ -94,9 +109,11 @@ def spectra_stream(files, errors, *, progress=None, piece_lamps=None, strict=Fal
                     if strict or k:
                         raise Failure(str(err)) from None
                     errors.append(str(err))
+                    if progress:
+                        progress.read(_size(path), 0)
                     break
                 if progress:
-                    progress.read(round(share * piece.n_lamps))
+                    progress.read(share * piece.n_lamps, piece.n_lamps)
                 yield piece
 
 

@@ -29,6 +29,9 @@ from .text_cells import COMMENT_MARKS, looks_numeric, parse_number
 FAST_MIN_BYTES = 4 << 20
 #: Lines read with the careful reader at most to find the table (metadata, header, first rows).
 HEAD_LINES = 200
+#: Larger files that are not plain tables are refused: the careful reader holds about ten times a
+#: file's size in memory.
+CAREFUL_MAX_BYTES = 1 << 30
 #: Text parsed by NumPy in one go, bytes (a block of lines).
 BLOCK_BYTES = 8 << 20
 _DATA_START = frozenset(b"0123456789+-.")
@@ -37,7 +40,29 @@ _ODD_BYTES = (b'"', b"\x0b", b"\x0c", b"\x1c", b"\x1d", b"\x1e")
 
 
 class _NotPlain(Exception):
-    """The file is not a plain table: the careful reader takes it."""
+    """The file is not a plain table: the careful reader takes it. ``args``: (place, problem) when known."""
+
+
+def _first_problem(block, delimiter, width, first_number):
+    """(place, problem) of the first line of a block NumPy could not read, in the careful reader's words.
+
+    ``width``: cells in a row of the table; ``first_number``: the first of them that holds a number.
+    """
+    from .text_cells import show, split_cells
+
+    for number, raw in block:
+        try:
+            cells = split_cells(raw.decode("utf-8", "replace"), delimiter)
+        except ValueError as err:
+            return f"line {number}", f"cannot be split into cells ({err})"
+        if len(cells) != width:
+            return f"line {number}", f"{len(cells)} fields where the table has {width}"
+        for c, cell in enumerate(cells[first_number:], start=first_number):
+            try:
+                parse_number(cell)
+            except ValueError as err:
+                return f"line {number}, column {c + 1}", f"{show(cell)} {err}"
+    return None
 
 
 def _odd(raw):
@@ -167,19 +192,23 @@ def _blocks(handle, first):
         yield block
 
 
-def _parse(lines, delimiter, width):
-    """The numbers of data lines (bytes), shape (len(lines), width); _NotPlain for anything odd."""
-    if not all(line.isascii() for line in lines):
-        raise _NotPlain
-    text = [line.decode("ascii") for line in lines]
-    if any(t.lstrip().startswith(COMMENT_MARKS) for t in text):
-        raise _NotPlain
+def _parse(lines, delimiter, width, block=(), first_number=0):
+    """The numbers of data lines (bytes), shape (len(lines), width); _NotPlain for anything odd.
+
+    ``block``: the ``(line number, bytes)`` of the whole lines, to say which is not plain;
+    ``first_number``: cells before the numbers on a whole line (a lamp row's name).
+    """
     try:
+        if not all(line.isascii() for line in lines):
+            raise ValueError
+        text = [line.decode("ascii") for line in lines]
+        if any(t.lstrip().startswith(COMMENT_MARKS) for t in text):
+            raise ValueError
         data = np.loadtxt(text, delimiter=delimiter, dtype=float, comments=None, quotechar=None, ndmin=2)
+        if data.shape[1] != width or not np.all(np.isfinite(data)):
+            raise ValueError
     except ValueError:
-        raise _NotPlain from None
-    if data.shape[1] != width or not np.all(np.isfinite(data)):
-        raise _NotPlain
+        raise _NotPlain(*(_first_problem(block, delimiter, width + first_number, first_number) or ())) from None
     return data
 
 
@@ -220,12 +249,12 @@ def _spool_body(handle, rows, start, layout, width, spool, n_head_lines):
         if layout == "rows":
             block_labels, lines = _split_labels(lines, delimiter)
             labels.extend(block_labels)
-            data = _parse(lines, delimiter, width - 1)
+            data = _parse(lines, delimiter, width - 1, block, 1)
             lows.append(data.min(axis=1))
             highs.append(data.max(axis=1))
             ats.append(data.argmin(axis=1))
         else:
-            data = _parse(lines, delimiter, width)
+            data = _parse(lines, delimiter, width, block)
             wavelengths.append(data[:, 0].copy())  # not a view: it would keep the whole block
             data = np.ascontiguousarray(data[:, 1:])
             if not lows:
@@ -267,9 +296,10 @@ def open_large_text(path, *, wavelength_unit=None, quantity=None):
 
     where = Where(path)
     try:
-        if not Path(path).is_file() or Path(path).stat().st_size < FAST_MIN_BYTES:
-            return None
+        size = Path(path).stat().st_size if Path(path).is_file() else 0
     except OSError:
+        return None
+    if size < FAST_MIN_BYTES:
         return None
     spool = tempfile.TemporaryFile(prefix="lampcalc-spectra-")
     parsed = None
@@ -290,8 +320,12 @@ def open_large_text(path, *, wavelength_unit=None, quantity=None):
         frame, _ = table_frame(rows, where, Path(str(path)).stem, parsed=parsed, wavelength_unit=wavelength_unit,
                                quantity=quantity)
         large = _checked(where, frame, layout, spool, stats)
-    except (_NotPlain, ValueError):
+    except (_NotPlain, ValueError) as err:
         spool.close()
+        if size > CAREFUL_MAX_BYTES:  # the careful reader would need tens of GB: say what is not plain
+            place, problem = err.args if isinstance(err, _NotPlain) and err.args else (None, "is not a plain table")
+            raise where(f"{problem}; a file over {CAREFUL_MAX_BYTES >> 30} GB is read only as a plain table "
+                        "(docs/scale.md)", place) from None
         return None
     except InputError:
         spool.close()

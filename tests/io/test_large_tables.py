@@ -157,3 +157,20 @@ def test_the_values_on_disk_have_no_name(forced, tmp_path, monkeypatch):
         next(spectra.chunks(1))
         assert list(spool_dir.iterdir()) == []  # nothing to leave behind, even when killed
     assert list(spool_dir.iterdir()) == []
+
+
+@pytest.mark.parametrize("case, expected", [
+    ("text_deep", "line 16, column 3: 'abc' is not a number"),
+    ("ragged_deep", "line 16: 3 fields where the table has 4"),
+    ("nan_deep", "line 16, column 3: 'nan' is not finite (NaN or infinity)"),
+    ("long_ragged", "line 3: 21 fields where the table has 22"),
+])
+def test_a_file_too_large_for_the_careful_reader_says_which_line_is_not_plain(forced, tmp_path, monkeypatch, case,
+                                                                              expected):
+    # the careful reader's words for the cell (tests/io/test_spectrum_table.py), and why the file is not read
+    monkeypatch.setattr(large_tables, "CAREFUL_MAX_BYTES", 10)
+    path = tmp_path / f"{case}.csv"
+    path.write_text(ODD[case], encoding="utf-8")
+    message = fast(path)
+    assert message.startswith(f"{path}, {expected}; a file over ")
+    assert message.endswith("is read only as a plain table (docs/scale.md)")
