@@ -52,7 +52,7 @@ def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi
     if not quiet_table:
         click.echo(rating_table(*tally.shown(), tally.count))
         click.echo(TABLE_NOTES)
-        if legend := legend_of(tally.flags.lamps):
+        if legend := legend_of(tally.flags.lamps, None if tally.all_shown else tally.flags.counts):
             click.echo("Flags:\n" + legend)
         click.echo()
     click.echo(verdict_text(verdicts))

@@ -59,9 +59,15 @@ def flag_legend(ratings):
     return legend_of(flag for flags in ratings["flags"] for flag in flags)
 
 
-def legend_of(flags):
-    """The words of each of ``flags``, one per line in alphabetical order (empty when none)."""
-    return "\n".join(f"  {flag}: {explain(flag)}" for flag in sorted(set(flags)))
+def legend_of(flags, counts=None):
+    """The words of each of ``flags``, one per line in alphabetical order (empty when none).
+
+    ``counts``: lamps per flag, said for each flag (for a run whose table shows only some lamps).
+    """
+    def count(flag):
+        return "" if counts is None else f" ({counts[flag]:,} lamp{'s' if counts[flag] != 1 else ''})"
+
+    return "\n".join(f"  {flag}{count(flag)}: {explain(flag)}" for flag in sorted(set(flags)))
 
 
 CRITERIA = {

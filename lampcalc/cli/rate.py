@@ -40,7 +40,7 @@ def rate_and_write(files, *, outputs=None, sets=None, workers=1, **reading):
         if not tally.all_shown and not {"json", "csv", "xlsx"} & set(outputs):
             click.echo("(write every lamp's ratings with --json, --csv or --xlsx)")
         click.echo(TABLE_NOTES)
-        if legend := legend_of(tally.flags.lamps):
+        if legend := legend_of(tally.flags.lamps, None if tally.all_shown else tally.flags.counts):
             click.echo("Flags:\n" + legend)
         click.echo(CAUTION)
         duplicates = duplicate_names(tally.repeated_names())

@@ -77,10 +77,12 @@ class FlagLamps:
 
     def __init__(self):
         self.lamps = {}  # flag -> [names kept, length of their text]
+        self.counts = {}  # flag -> lamps it qualifies
 
     def add(self, names, flags):
         for name, lamp_flags in zip(names, flags):
             for flag in lamp_flags:
+                self.counts[flag] = self.counts.get(flag, 0) + 1
                 kept = self.lamps.setdefault(flag, [[], -2])
                 if kept[1] <= _KEEP_CHARACTERS:
                     kept[0].append(name)

@@ -249,6 +249,8 @@ def test_a_large_batch_shows_its_first_and_last_lamps(run, write, tmp_path, monk
     shown = [line.split()[0] for line in result.stdout.splitlines() if line.startswith("QF-M0-")]
     assert shown == ["QF-M0-0000", "QF-M0-0001", "QF-M0-0007", "QF-M0-0008"]
     assert "(the first 2 and the last 2 of 9 lamps are shown)" in result.stdout
+    # every lamp's flags are counted in the legend: the shipped steps metric is unconfirmed for all 9
+    assert "steps_metric_unconfirmed (9 lamps): " in result.stdout
     assert "write every lamp's ratings with --json, --csv or --xlsx" in result.stdout
     result = run("rate", path, "--csv", tmp_path / "r.csv")
     assert "--json, --csv or --xlsx" not in result.stdout
