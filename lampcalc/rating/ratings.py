@@ -83,7 +83,8 @@ class Ratings:
     DataFrame, ``"cct_K" in ratings`` and iteration go over the keys and ``len`` is the
     number of lamps; :meth:`to_pandas` gives a DataFrame with list fields spread into columns.
     ``extras`` keeps what figures need but files do not: the spectra on the grid
-    (``"batch"``) and the TM-30 bin means (``"ref_ab_bins"``, ``"test_ab_bins"``).
+    (``"batch"``) and the TM-30 bin means (``"ref_ab_bins"``, ``"test_ab_bins"``); empty for
+    ratings rated in a stream that draws nothing (:mod:`lampcalc.rating.streaming`).
     """
 
     def __init__(self, columns, extras=None):

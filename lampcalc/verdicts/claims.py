@@ -327,8 +327,9 @@ class Verdicts:
             text += f", {undecided} cannot be checked"
         if self.missing:
             text += f"; claimed but no spectrum: {', '.join(self.missing)}"
-        if self.unclaimed:
-            text += f"; not claimed: {', '.join(self.unclaimed)}"
+        if self.unclaimed:  # a database's lamps may be mostly unclaimed: name ten, count the rest
+            more = f" and {len(self.unclaimed) - 10:,} more" if len(self.unclaimed) > 10 else ""
+            text += f"; not claimed: {', '.join(self.unclaimed[:10])}{more}"
         return text
 
     def to_json(self):

@@ -162,3 +162,13 @@ def test_claims_file_in_the_spectra_folder_is_not_a_spectrum(run, tmp_path):
     result = run("check", "-r", tmp_path, "--claims", claims)
     assert result.exit_code == 0, result.output
     assert "claims.csv" not in result.stderr
+
+
+def test_summary_names_ten_unclaimed_lamps_and_counts_the_rest():
+    # a bounded line for a database of lamps, few of them claimed (lampcalc's own layout, no source)
+    from lampcalc.verdicts.claims import Verdicts
+
+    few = Verdicts(lamps=[], unclaimed=["QF-1", "QF-2"])
+    assert few.summary().endswith("not claimed: QF-1, QF-2")
+    many = Verdicts(lamps=[], unclaimed=[f"QF-{k}" for k in range(12_345)])
+    assert many.summary().endswith("not claimed: QF-0, QF-1, QF-2, QF-3, QF-4, QF-5, QF-6, QF-7, QF-8, QF-9 and 12,335 more")
