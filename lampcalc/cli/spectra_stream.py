@@ -87,15 +87,19 @@ def spectra_stream(files, errors, *, progress=None, piece_lamps=None, strict=Fal
     from ..rating.streaming import CHUNK_LAMPS
 
     piece_lamps = piece_lamps or CHUNK_LAMPS
+
+    def refused(path, err):
+        if strict:
+            raise Failure(str(err)) from None
+        errors.append(str(err))
+        if progress:
+            progress.read(_size(path), 0)
+
     for path in files:
         try:
             spectra = open_spectra(path, wavelength_unit=wavelength_unit, quantity=quantity)
         except InputError as err:
-            if strict:
-                raise Failure(str(err)) from None
-            errors.append(str(err))
-            if progress:
-                progress.read(_size(path), 0)
+            refused(path, err)
             continue
         with spectra:
             pieces = [spectra.whole()] if spectra.n_lamps <= piece_lamps else spectra.chunks(piece_lamps)
@@ -106,11 +110,9 @@ def spectra_stream(files, errors, *, progress=None, piece_lamps=None, strict=Fal
                         piece = piece.with_electrical_power(watts)
                     piece = piece.on_grid(interpolation)
                 except InputError as err:  # the file's wavelengths: met with its first piece, before any lamp
-                    if strict or k:
+                    if k:
                         raise Failure(str(err)) from None
-                    errors.append(str(err))
-                    if progress:
-                        progress.read(_size(path), 0)
+                    refused(path, err)
                     break
                 if progress:
                     progress.read(share * piece.n_lamps, piece.n_lamps)
