@@ -93,7 +93,17 @@ _EXPORTS = {
     "check_lot_claims": "verdicts.lot_claims",
     "colour_over_angle": "verdicts.angles",
     "compare_ratings": "verdicts.comparison",
-    "write_report": "report.pdf",
+    "MeasurementModel": "rating.measurement_model",
+    "read_measurement_model": "rating.measurement_model",
+    "rate_with_uncertainty": "rating.uncertainty",
+    "coverage_interval": "rating.uncertainty",
+    "slit_convolution": "rating.uncertainty",
+    "DecisionRule": "verdicts.decision_rules",
+    "ClaimDraws": "verdicts.claim_uncertainty",
+    "judge_with_uncertainty": "verdicts.claim_uncertainty",
+    "write_report": "report.document",
+    "read_report_info": "report.report_info",
+    "ReportInfo": "report.report_info",
 }
 
 __all__ = sorted(_EXPORTS)

@@ -108,10 +108,13 @@ def collect_files(paths, recursive, exclude=()):
     return files
 
 
-def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, interpolation="auto", watts=None):
+def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, interpolation="auto", watts=None,
+               as_read=False):
     """Read every file onto the grid; returns ``(batches, errors)``. ``strict`` stops at the first error.
 
-    ``watts`` is the electrical power of every lamp whose file does not give one.
+    ``watts`` is the electrical power of every lamp whose file does not give one. With ``as_read``
+    the batches keep the files' own wavelengths (checked against the grid all the same), for
+    ``--uncertainty``, whose draws perturb the samples before they are resampled.
     """
     from ..errors import InputError
     from ..io.spectrum_files import read_spectra
@@ -123,7 +126,8 @@ def read_files(files, *, wavelength_unit=None, quantity=None, strict=False, inte
                 batch = read_spectra(f, wavelength_unit=wavelength_unit, quantity=quantity)
                 if watts is not None:
                     batch = batch.with_electrical_power(watts)
-                batches.append(batch.on_grid(interpolation))
+                gridded = batch.on_grid(interpolation)
+                batches.append(batch if as_read else gridded)
             except InputError as err:
                 if strict:
                     raise Failure(str(err)) from None
@@ -243,14 +247,38 @@ def spectrum_options(fn):
     return fn
 
 
-def write_report_file(path, ratings, verdicts=None, shown_as=None):
-    """Write the PDF report to ``path`` (told as ``shown_as``, the final name, when ``path`` is temporary)."""
-    from ..report.pdf import write_report
+def report_options(fn):
+    """``--report-info FILE`` and ``--paper``: what a command that writes a report also takes."""
+    fn = click.option(
+        "--paper", type=click.Choice(["a4", "letter"]), default="a4", show_default=True,
+        help="Paper of the report: A4 or US Letter.",
+    )(fn)
+    return click.option(
+        "--report-info", "report_info", type=click.Path(exists=True, dir_okay=False), default=None, metavar="FILE",
+        help="TOML file of the report's title, client, project, laboratory, report_number, date, prepared_by, notes.",
+    )(fn)
 
-    n_pages = len(ratings) + 2
+
+def read_report_options(report_out, report_info, paper):
+    """The report's information, read before any other work; refused without --report."""
+    source = click.get_current_context().get_parameter_source("paper")
+    if report_out is None and (report_info or source == click.core.ParameterSource.COMMANDLINE):
+        raise Failure("--report-info and --paper describe the PDF report: add --report FILE")
+    if report_info is None:
+        return None
+    from ..report.report_info import read_report_info
+
+    return read_report_info(report_info)
+
+
+def write_report_file(path, ratings, verdicts=None, shown_as=None, report_info=None, paper="a4"):
+    """Write the PDF report to ``path`` (told as ``shown_as``, the final name, when ``path`` is temporary)."""
+    from ..report.document import Report
+
+    report = Report(ratings, verdicts, info=report_info, paper=paper)
     if sys.stderr.isatty():
-        with click.progressbar(length=n_pages, label="writing report", file=sys.stderr) as bar:
-            pages = write_report(path, ratings, verdicts, progress=bar.update)
+        with click.progressbar(length=report.n_pages, label="writing report", file=sys.stderr) as bar:
+            pages = report.write(path, progress=bar.update)
     else:
-        pages = write_report(path, ratings, verdicts)
+        pages = report.write(path)
     click.echo(f"wrote {shown_as or path} ({pages} pages)", err=True)

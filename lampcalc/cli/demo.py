@@ -27,7 +27,8 @@ def demo(out_dir):
     The supplier, Quillfen Lighting, and its lamps are invented; their spectra are made
     from physical models. Some of its claims are false on purpose.
     """
-    from ..io.demo_data import demo_claims, demo_files
+    from ..io.demo_data import demo_claims, demo_files, demo_report_info
+    from ..report.report_info import read_report_info
 
     out = Path(out_dir)
     out.mkdir(parents=True, exist_ok=True)
@@ -38,13 +39,36 @@ def demo(out_dir):
     if rate_and_write(files, outputs=rate_outputs):
         sys.exit(2)
     click.echo(f"\nChecking the supplier's claims ({demo_claims().name}):\n")
-    status, ratings = check_and_write(files, demo_claims(), outputs=check_outputs, quiet_table=True)
+    status, ratings = check_and_write(
+        files, demo_claims(), outputs=check_outputs, quiet_table=True,
+        report_options={"report_info": read_report_info(demo_report_info())},
+    )
     if status == 2:
         sys.exit(2)
+    demo_uncertainty(out)
     demo_figures(ratings, out)
     if demo_sets(out) == 2:
         sys.exit(2)
     click.echo(f"\nResults in {out}/")
+
+
+def demo_uncertainty(out):
+    """One lamp's verdicts with the measurement uncertainty of the supplier's own laboratory."""
+    from ..io.demo_data import demo_claims, demo_folder, demo_measurement_model
+    from ..verdicts.decision_rules import DecisionRule
+
+    lamp, model = "QF-A60-3000", demo_measurement_model()
+    click.echo(
+        f"\nHow sure is the verdict? {lamp} as the supplier's quality-control spectrometer measures it "
+        f"({model.name}), with guarded acceptance:\n"
+    )
+    files = [demo_folder() / "quillfen_led_range_1nm.csv"]
+    status, _ = check_and_write(
+        files, demo_claims(), outputs=prepare_outputs(files, json=out / "checks_uncertainty.json"),
+        quiet_table=True, uncertainty=model, rule=DecisionRule("guarded"), lamps=(lamp,),
+    )
+    if status == 2:
+        sys.exit(2)
 
 
 def demo_figures(ratings, out):

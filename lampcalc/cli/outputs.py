@@ -68,11 +68,12 @@ def prepare_outputs(inputs=(), **paths):
     return outputs
 
 
-def write_outputs(ratings, verdicts, outputs):
+def write_outputs(ratings, verdicts, outputs, report_options=None):
     """Write the outputs asked for (see :func:`prepare_outputs`) together.
 
     JSON and CSV hold the verdicts when claims were checked, else the ratings; the
-    workbook holds the ratings, their flags and the verdicts; the report both.
+    workbook holds the ratings, their flags and the verdicts; the report both
+    (``report_options``: its ``report_info`` and ``paper``).
     """
     from ..io.atomic import replaced_together
     from ..io.workbook import write_workbook
@@ -96,7 +97,7 @@ def write_outputs(ratings, verdicts, outputs):
                     sheets.append(("notes", ["note"], [[CAUTION], ["Keys and units: docs/output-fields.md"]]))
                     write_workbook(tmp[path], sheets)
                 else:
-                    write_report_file(tmp[path], ratings, verdicts, shown_as=path)
+                    write_report_file(tmp[path], ratings, verdicts, shown_as=path, **(report_options or {}))
     except OSError as err:
         raise Failure(f"cannot write the outputs ({err.strerror or err}: {err.filename or ''}); none was changed") from None
     for kind, path in outputs.items():
@@ -111,7 +112,7 @@ class _NoLamps(Exception):
 class _Sink:
     """Writes each chunk of ratings to the temporary files of the outputs (JSON, CSV, workbook)."""
 
-    def __init__(self, outputs, tmp, handles):
+    def __init__(self, outputs, tmp, handles, report_options=None):
         from ..io.streamed_tables import JsonRows
         from ..io.workbook import WorkbookWriter
         from ..rating.wide_columns import FlagLamps
@@ -122,6 +123,7 @@ class _Sink:
         self.book = WorkbookWriter() if "xlsx" in outputs else None
         self.flags = FlagLamps()
         self.report = [] if "report" in outputs else None  # ratings with their spectra, for the report's pages
+        self.report_options = report_options or {}
 
     def write(self, ratings):
         from ..io.streamed_tables import CsvRows
@@ -162,11 +164,11 @@ class _Sink:
             self.book.save(self.tmp[self.outputs["xlsx"]])
         if self.report is not None:
             path = self.outputs["report"]
-            write_report_file(self.tmp[path], join_ratings(self.report), None, shown_as=path)
+            write_report_file(self.tmp[path], join_ratings(self.report), None, shown_as=path, **self.report_options)
 
 
 @contextlib.contextmanager
-def streamed_outputs(outputs):
+def streamed_outputs(outputs, report_options=None):
     """A sink for chunks of ratings (``sink.write(ratings)``), written into the outputs as they come.
 
     The outputs are temporary files until the block ends; then they are renamed together
@@ -182,7 +184,7 @@ def streamed_outputs(outputs):
                 for kind, path in outputs.items()
                 if kind in ("json", "csv")
             }
-            sink = _Sink(outputs, tmp, handles)
+            sink = _Sink(outputs, tmp, handles, report_options)
             yield sink
             if sink.count == 0:
                 raise _NoLamps

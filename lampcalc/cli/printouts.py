@@ -54,6 +54,22 @@ TABLE_NOTES = (
 )
 
 
+def echo_ratings(tally, outputs=()):
+    """Print the ratings of a run (:class:`~lampcalc.rating.tally.RunTally`): the table, its notes, the flags' words.
+
+    A run of more than :data:`~lampcalc.rating.tally.SHOWN` lamps shows its first and last
+    lamps, and the number of lamps each flag qualifies.
+    """
+    import click
+
+    click.echo(rating_table(*tally.shown(), tally.count))
+    if not tally.all_shown and not {"json", "csv", "xlsx"} & set(outputs):
+        click.echo("(write every lamp's ratings with --json, --csv or --xlsx)")
+    click.echo(TABLE_NOTES)
+    if legend := legend_of(tally.flags.lamps, None if tally.all_shown else tally.flags.counts):
+        click.echo("Flags:\n" + legend)
+
+
 def flag_legend(ratings):
     """The words of every flag the lamps carry, one per line (empty when none)."""
     return legend_of(flag for flags in ratings["flags"] for flag in flags)
@@ -70,6 +86,9 @@ def legend_of(flags, counts=None):
     return "\n".join(f"  {flag}{count(flag)}: {explain(flag)}" for flag in sorted(set(flags)))
 
 
+#: Labels and formats of the uncertainty decision table (cli/uncertainty.py) and the words of the lot
+#: and comparison tables (lot_printouts, compare_printouts); the claims check's verdict table uses
+#: lampcalc.verdicts.wording.
 CRITERIA = {
     # criterion: (label, claimed format, value format, unit)
     "ansi_quadrangle": ("ANSI quadrangle", "{:g} K", "{:.0f} K", "e-3 uv"),
@@ -89,29 +108,27 @@ CRITERIA = {
 RESULT = {True: "holds", False: "FAILS", None: "not shown"}
 
 
-def verdict_text(verdicts):
-    import math
-
+def verdict_text(verdicts, ratings=None):
+    """The verdict table of every claimed lamp, in the words the report uses (verdicts.wording)."""
+    from ..verdicts.wording import QUALIFIED, lamp_line, pair_verdicts, word_checks
     from .text_table import format_table
 
+    flags = ratings["flags"] if ratings is not None else ()
+    names = ratings["name"] if ratings is not None else [v["lamp"] for v in verdicts.lamps if v["lamp"] not in verdicts.missing]
     blocks = []
-    for lamp in verdicts.lamps:
-        rows = []
-        for c in lamp["checks"]:
-            label, claimed_fmt, value_fmt, unit = CRITERIA[c["criterion"]]
-            claimed = claimed_fmt.format(c["claimed"]) if c["claimed"] is not None else "-"
-            measured = value_fmt.format(c["measured"]) if c["measured"] is not None else "-"
-            margin = "-" if c["margin"] is None or not math.isfinite(c["margin"]) else f"{c['margin']:+.4g} {unit}".strip()
-            rows.append([label, claimed, measured, margin, RESULT[c["pass"]], c["note"]])
-        failing = sum(c["pass"] is not True for c in lamp["checks"])
-        if [c["criterion"] for c in lamp["checks"]] == ["spectrum"]:
-            head = f"{lamp['lamp']}: no spectrum among the files given; its claims are not checked"
-        else:
-            head = f"{lamp['lamp']}: " + ("every claim holds" if lamp["pass"] else f"{failing} of {len(lamp['checks'])} checks do not hold")
-        table = format_table(["claim", "claimed", "measured", "margin", "result", "note"], rows, "lllrll")
-        blocks.append(head + "\n" + "\n".join("  " + line for line in table.splitlines()))
+    paired = [(lamp, flags[k] if ratings is not None else ()) for k, lamp in enumerate(pair_verdicts(names, verdicts))]
+    paired += [(lamp, ()) for lamp in verdicts.lamps if lamp["lamp"] in verdicts.missing]
+    for lamp, lamp_flags in paired:
+        if lamp is None:
+            continue
+        words = word_checks(lamp, lamp_flags)
+        rows = [[w.claim, w.measured, w.margin, w.verdict_text, w.why] for w in words]
+        table = format_table(["claim", "measured", "margin", "verdict", "why"], rows, "lrrll")
+        blocks.append(f"{lamp['lamp']}: {lamp_line(lamp)}\n" + "\n".join("  " + line for line in table.splitlines()))
     blocks.append(
-        "margin: how far the measurement is on the right side of the claim (negative: it fails by that much);\n"
-        "for the ANSI quadrangle or a bin, the distance from its nearest edge in CIE 1960 u,v (x 1e-3)."
+        "margin: how far the measured value lies on the claim's side of its limit (negative: short of it by\n"
+        "that much); for a quadrangle, the distance from its nearest edge in CIE 1960 (u, v).\n"
+        f"{QUALIFIED} qualified: the verdict rests on a value in parentheses (outside its method's validity) or on a\n"
+        "value that no published source confirms (see the report's methods page)."
     )
     return "\n\n".join(blocks)

@@ -24,6 +24,11 @@ def demo_claims():
     return demo_folder() / "claims_quillfen.csv"
 
 
+def demo_report_info():
+    """The report information of the demo's report (a TOML file)."""
+    return demo_folder() / "report_info_quillfen.toml"
+
+
 def demo_set(name):
     """The spectrum files of one demo set in a subfolder of the demo: ``"lot"``, ``"angles"`` or ``"datasheet"``."""
     folder = demo_folder() / name
@@ -33,3 +38,8 @@ def demo_set(name):
 def demo_lot_claims():
     """The fictional supplier's claims on its demo lot (TOML)."""
     return demo_folder() / "lot" / "lot_claims_quillfen.toml"
+
+
+def demo_measurement_model():
+    """The measurement model of the fictional supplier's quality-control spectrometer (TOML)."""
+    return demo_folder() / "quillfen_qc_lab_model.toml"

@@ -9,7 +9,7 @@ from ..spectra.tables import (
     colour_matching_functions,
     luminous_efficiency,
 )
-from .style import INK, LAMP, MUTED, REFERENCE
+from .style import INK, LAMP, MUTED, REFERENCE, plain_text
 
 # IEC 61966-2-1 (sRGB): CIE XYZ to linear RGB.
 _XYZ_TO_SRGB = np.array([[3.2406, -1.5372, -0.4986], [-0.9689, 1.8758, 0.0415], [0.0557, -0.2040, 1.0570]])
@@ -30,6 +30,55 @@ def spectral_band_rgb(wavelength_nm):
     return np.where(rgb <= 0.0031308, 12.92 * rgb, 1.055 * rgb ** (1 / 2.4) - 0.055)
 
 
+def reference_at_equal_luminance(values, reference):
+    """``reference`` spectra scaled to the luminance of ``values`` (both (..., 471) on the grid)."""
+    ybar = luminous_efficiency()
+    values, reference = np.asarray(values, dtype=float), np.asarray(reference, dtype=float)
+    return reference * ((values @ ybar) / (reference @ ybar))[..., None]
+
+
+class SpectrumPanel:
+    """A lamp's relative spectrum against its reference, with V(λ) and the melanopic curve drawn once.
+
+    The lamp is a solid, heavier line; the reference a thinner dashed one: the two stay
+    apart in a greyscale print.
+    """
+
+    def __init__(self, ax, *, v_lambda=True, melanopic=True):
+        self.ax = ax
+        (self.lamp,) = ax.plot(GRID_NM, np.full(GRID_NM.size, np.nan), color=LAMP, lw=1.3, label="lamp",
+                               gid="lamp_spectrum")
+        (self.reference,) = ax.plot(GRID_NM, np.full(GRID_NM.size, np.nan), color=REFERENCE, lw=0.8, ls=(0, (5, 2)),
+                                    label="reference", gid="reference_spectrum")
+        if v_lambda:
+            ax.plot(GRID_NM, luminous_efficiency(), color=INK, lw=0.6, ls=":", label="V(λ)", gid="v_lambda")
+        if melanopic:
+            mel = action_spectra_s026()[:, 4]
+            ax.plot(GRID_NM, mel / mel.max(), color=MUTED, lw=0.6, ls="-.", label="melanopic s_mel(λ)", gid="melanopic")
+        ax.set_xlim(360, 830)
+        ax.set_ylim(0, 1.05)
+        ax.set_xlabel("wavelength (nm)")
+        ax.set_ylabel("relative spectral power")
+        ax.grid(True)
+
+    def update(self, values, *, reference=None, measured_range_nm=None, name="lamp", reference_label="reference"):
+        """Show one lamp (values on the grid; ``reference`` already at equal luminance, or None)."""
+        values = np.asarray(values, dtype=float)
+        scale = values.max()
+        shown = values / scale
+        if measured_range_nm is not None:
+            shown = np.where((GRID_NM >= measured_range_nm[0]) & (GRID_NM <= measured_range_nm[1]), shown, np.nan)
+        self.lamp.set_ydata(shown)
+        self.lamp.set_label(name)
+        has_reference = reference is not None and np.all(np.isfinite(reference))
+        self.reference.set_ydata(np.asarray(reference) / scale if has_reference else np.full(GRID_NM.size, np.nan))
+        self.reference.set_visible(has_reference)
+        self.reference.set_label(reference_label if has_reference else "_none")
+        top = max(1.05, float(np.nanmax(self.reference.get_ydata())) * 1.05 if has_reference else 1.05)
+        self.ax.set_ylim(0, top)
+        return self
+
+
 def draw_spectrum(ax, values, *, cct_K=None, name="", measured_range_nm=None, v_lambda=True, melanopic=True, band=True):
     """Relative spectrum of one lamp on the grid, with the reference illuminant at its CCT.
 
@@ -44,29 +93,14 @@ def draw_spectrum(ax, values, *, cct_K=None, name="", measured_range_nm=None, v_
     measured_range_nm : (float, float), optional
         The lamp is drawn only where it was measured (outside, lampcalc's zeros are no data).
     """
-    values = np.asarray(values, dtype=float)
-    ybar = luminous_efficiency()
-    scale = values.max()
-    shown = values / scale
-    if measured_range_nm is not None:
-        shown = np.where((GRID_NM >= measured_range_nm[0]) & (GRID_NM <= measured_range_nm[1]), shown, np.nan)
-    ax.plot(GRID_NM, shown, color=LAMP, lw=1.1, label=name or "lamp", gid="lamp_spectrum")
+    panel = SpectrumPanel(ax, v_lambda=v_lambda, melanopic=melanopic)
+    reference, label = None, "reference"
     if cct_K is not None and np.isfinite(cct_K):
-        ref = reference_cie224([cct_K])[0]
-        if np.all(np.isfinite(ref)):
-            ref = ref * (values @ ybar) / (ref @ ybar) / scale
-            ax.plot(GRID_NM, ref, color=REFERENCE, lw=0.9, ls=(0, (5, 2)), label=f"reference at {cct_K:.0f} K",
-                    gid="reference_spectrum")
-    if v_lambda:
-        ax.plot(GRID_NM, ybar, color=INK, lw=0.6, ls=":", label="V(λ)", gid="v_lambda")
-    if melanopic:
-        mel = action_spectra_s026()[:, 4]
-        ax.plot(GRID_NM, mel / mel.max(), color=MUTED, lw=0.6, ls="-.", label="melanopic s_mel(λ)", gid="melanopic")
-    ax.set_xlim(360, 830)
-    ax.set_ylim(0, max(1.05, ax.get_ylim()[1]))
-    ax.set_xlabel("wavelength (nm)")
+        reference = reference_at_equal_luminance(values, reference_cie224([cct_K])[0])
+        label = f"reference at {cct_K:.0f} K"
+    panel.update(values, reference=reference, measured_range_nm=measured_range_nm, name=plain_text(name or "lamp"),
+                 reference_label=label)
     ax.set_ylabel("relative spectral power (equal luminance)")
-    ax.grid(True)
     ax.legend(loc="upper right")
     if band:
         strip = ax.inset_axes([0.0, 0.0, 1.0, 0.03], transform=ax.transAxes, zorder=0.5)

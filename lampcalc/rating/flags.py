@@ -55,6 +55,7 @@ FLAG_MEANINGS = {
         "the highest peak is under 3 nm wide on the 1 nm computation grid, which cannot resolve it: "
         "the line itself may be narrower than fwhm_nm"
     ),
+    "uncertainty_incomplete": "some Monte Carlo draws gave no value for a rating (e.g. no CCT): its uncertainty is null",
     # Lots, angles and comparisons (lampcalc.verdicts): flags of a whole lot or pair.
     "lot_too_small_for_sd": "fewer than 2 samples: no standard deviation and no pairwise Δu′v′",
     "lot_too_small_for_ellipse": "fewer than 3 samples: no covariance ellipse",

@@ -104,8 +104,13 @@ class Ratings:
         return iter(self.keys())
 
     def keys(self):
-        """The output keys present, in :data:`FIELDS` order."""
-        return [k for k in FIELDS if k in self.columns] + [k for k in self.columns if k not in FIELDS]
+        """The output keys present (:meth:`output_keys`), then any other columns."""
+        ordered = self.output_keys()
+        return ordered + [k for k in self.columns if k not in set(ordered)]
+
+    def output_keys(self):
+        """The keys of the JSON and CSV files, in :data:`FIELDS` order; a key's ``_u`` and ``_interval95`` follow it."""
+        return [k for key in FIELDS for k in (key, f"{key}_u", f"{key}_interval95") if k in self.columns]
 
     def to_pandas(self):
         """A pandas DataFrame, one row per lamp; list fields spread into columns (pandas optional)."""
@@ -114,13 +119,13 @@ class Ratings:
         return to_pandas(self)
 
     def records(self):
-        """One dict per lamp, keys in :data:`FIELDS` order, NaN as None."""
-        keys = [k for k in FIELDS if k in self.columns]
+        """One dict per lamp, keys in :meth:`output_keys` order, NaN as None."""
+        keys = self.output_keys()
         return [{k: plain(self.columns[k][i]) for k in keys} for i in range(len(self))]
 
     def output_columns(self):
-        """The columns of :data:`FIELDS` present, in order: what the JSON and CSV forms hold."""
-        return {k: self.columns[k] for k in FIELDS if k in self.columns}
+        """The columns of :meth:`output_keys`, in order: what the JSON and CSV forms hold."""
+        return {k: self.columns[k] for k in self.output_keys()}
 
     def to_json(self):
         """JSON text: a list with one object per lamp."""

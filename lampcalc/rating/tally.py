@@ -10,6 +10,7 @@ import zlib
 
 import numpy as np
 
+from .ratings import Ratings
 from .streaming import join_ratings, take_ratings
 from .wide_columns import FlagLamps
 
@@ -33,6 +34,7 @@ class RunTally:
         n = len(ratings)
         if n == 0:
             return
+        ratings = Ratings(ratings.columns)  # the terminal shows columns: no spectra, no draws kept
         if self.count < SHOWN:
             head = take_ratings(ratings, 0, SHOWN - self.count)
             self.head = head if self.head is None else join_ratings([self.head, head])

@@ -13,6 +13,9 @@ list field                          columns
 ``ler_range_nm``                    ``ler_range_start_nm``, ``ler_range_end_nm``
 ``flags``                           ``flags``: the flags joined with ``"; "``
 ==================================  ==============================================
+
+With ``--uncertainty`` each key's ``_u`` columns follow its columns and each ``_interval95``
+becomes two, ``_interval95_low`` and ``_interval95_high`` (``cct_K_u``, ``r9_interval95_low`` …).
 """
 
 from ..io.serialise import plain
@@ -44,14 +47,32 @@ def wide_columns(ratings):
     out = {}
     for key in ratings.keys():
         column = [plain(v) for v in ratings.columns[key]]
+        base, suffix = _companion(key, ratings)
         if key == "flags":
             out[key] = ["; ".join(f) for f in column]
-        elif key in SPREAD:
-            for j, name in enumerate(SPREAD[key]):
-                out[name] = [v[j] if v and j < len(v) else None for v in column]
+        elif base in SPREAD:
+            for j, name in enumerate(SPREAD[base]):
+                _put(out, name + suffix, [v[j] if v and j < len(v) else None for v in column])
         else:
-            out[key] = column
+            _put(out, key, column)
     return out
+
+
+def _companion(key, ratings):
+    """(rating, suffix) of an uncertainty key (``cct_K_u`` -> ("cct_K", "_u")); (key, "") for others."""
+    for suffix in ("_u", "_interval95"):
+        if key.endswith(suffix) and key[: -len(suffix)] in ratings.columns:
+            return key[: -len(suffix)], suffix
+    return key, ""
+
+
+def _put(out, name, column):
+    """One column, or a 95 % interval as two: ``<name>_low`` and ``<name>_high``."""
+    if name.endswith("_interval95"):
+        out[f"{name}_low"] = [v[0] if v else None for v in column]
+        out[f"{name}_high"] = [v[1] if v else None for v in column]
+    else:
+        out[name] = column
 
 
 def to_pandas(ratings):

@@ -135,22 +135,24 @@ def sprague(wavelength_nm, values, target_nm=GRID_NM):
 
 
 def _sprague_weights(wl, target):
-    """Weights (n, m) such that data (n,) @ weights is the Sprague interpolant at ``target``."""
-    unit = np.eye(wl.size)
-    h = wl[1] - wl[0]
-    head = unit[..., :6] @ _SPRAGUE_START.T  # f[-2], f[-1]
-    tail = unit[..., -6:][..., ::-1] @ _SPRAGUE_START.T  # f[n+2], f[n+1]
-    padded = np.concatenate([head, unit, tail[..., ::-1]], axis=-1)
+    """Weights (n, m) such that data (n,) @ weights is the Sprague interpolant at ``target``.
+
+    Each target takes six neighbours f[i-2..i+3] with the polynomial weights of CIE 167:2005; the
+    two points added at each end are the Table 1 combinations of the first (last) six nodes.
+    Built column by column in O(m), so that a new axis (a shifted draw) costs little.
+    """
+    n, h = wl.size, wl[1] - wl[0]
     inside = (target >= wl[0]) & (target <= wl[-1])
     pos = np.where(inside, (target - wl[0]) / h, 0.0)
-    i = np.clip(np.floor(pos).astype(int), 0, wl.size - 2)
+    i = np.clip(np.floor(pos).astype(int), 0, n - 2)
     x = pos - i
-    # Six neighbours f[i-2..i+3] sit at padded[i..i+5].
-    window = padded[..., i[:, None] + np.arange(6)]  # (n, m, 6)
-    coeff = window @ _SPRAGUE_POLY.T  # (n, m, 6): a0..a5
-    powers = x[:, None] ** np.arange(6)
-    out = np.sum(coeff * powers, axis=-1)
-    return np.where(inside, out, 0.0)
+    # Weight of the padded point i + k (k = 0..5, i.e. f[i-2..i+3]) in the interpolant at each target.
+    padded = np.zeros((n + 4, target.size))
+    padded[i[:, None] + np.arange(6), np.arange(target.size)[:, None]] = (x[:, None] ** np.arange(6)) @ _SPRAGUE_POLY
+    weights = padded[2:n + 2].copy()
+    weights[:6] += _SPRAGUE_START.T @ padded[:2]  # f[-2], f[-1] from the first six nodes
+    weights[n - 6:] += (_SPRAGUE_START.T @ padded[[n + 3, n + 2]])[::-1]  # f[n+1], f[n] from the last six
+    return np.where(inside, weights, 0.0)
 
 
 def integrate(wavelength_nm, values, target_nm=GRID_NM):

@@ -33,6 +33,7 @@ from ..standards.ansi_bins import DUV_TOLERANCE, FLEXIBLE_NOTE, ansi_bin_set, ca
 from ..standards.bin_sets import margins
 from ..standards.ellipse_sets import shipped_ellipse_set
 from ..standards.steps import steps_from_nominal
+from .wording import format_value
 
 #: Claim columns and their meaning; every other column is refused.
 CLAIM_COLUMNS = {
@@ -251,7 +252,8 @@ def _efficacy_check(v, r):
     if radiant > watts:
         return _check(
             "efficacy_lm_per_W", claimed, None, None,
-            f"not evaluated: radiant flux {radiant:.4g} W exceeds the electrical power {watts:g} W, which is "
+            f"not evaluated: radiant flux {format_value('radiant_flux_W', radiant, unit=True)} exceeds the electrical "
+            f"power {format_value('electrical_W', watts, unit=True)}, which is "
             "impossible (check the spectrum's unit, e.g. mW/nm read as W/nm, and the power)",
         )
     efficacy = flux / watts
@@ -301,6 +303,9 @@ def check_lamp(claim, ratings, i, ellipse_set=None, sdcm_centre="ansi", bin_set=
     return checks
 
 
+_CHECK_KEYS = ("criterion", "claimed", "measured", "margin", "pass", "note")
+
+
 @dataclass
 class Verdicts:
     """Results of checking a claims file against a batch's ratings."""
@@ -315,41 +320,41 @@ class Verdicts:
         return all(lamp["pass"] for lamp in self.lamps)
 
     def summary(self):
-        checks = [c for lamp in self.lamps for c in lamp["checks"]]
-        failed = sum(c["pass"] is False for c in checks)
-        undecided = sum(c["pass"] is None for c in checks)
-        lamps_failed = sum(not lamp["pass"] for lamp in self.lamps)
-        text = (
-            f"{len(self.lamps)} lamps claimed, {lamps_failed} with a claim that does not hold; "
-            f"{len(checks)} checks: {len(checks) - failed - undecided} pass, {failed} fail"
-        )
-        if undecided:
-            text += f", {undecided} cannot be checked"
-        if self.missing:
-            text += f"; claimed but no spectrum: {', '.join(self.missing)}"
-        if self.unclaimed:  # a database's lamps may be mostly unclaimed: name ten, count the rest
-            more = f" and {len(self.unclaimed) - 10:,} more" if len(self.unclaimed) > 10 else ""
-            text += f"; not claimed: {', '.join(self.unclaimed[:10])}{more}"
-        return text
+        """The counts in one line, in the words of :mod:`lampcalc.verdicts.wording`."""
+        from .wording import count_line
+
+        return count_line(self)
+
+    def _extra_keys(self):
+        """Keys a layer on top (the measurement uncertainty) added to the checks, in order."""
+        keys = [k for lamp in self.lamps for c in lamp["checks"] for k in c if k not in _CHECK_KEYS]
+        return list(dict.fromkeys(keys))
 
     def to_json(self):
+        keys = _CHECK_KEYS + tuple(self._extra_keys())
         out = [
             {
                 "lamp": lamp["lamp"],
                 "pass": lamp["pass"],
-                "checks": [{k: plain(c[k]) for k in ("criterion", "claimed", "measured", "margin", "pass", "note")} for c in lamp["checks"]],
+                **({"decision": lamp["decision"]} if "decision" in lamp else {}),
+                "checks": [{k: plain(c.get(k)) for k in keys} for c in lamp["checks"]],
             }
             for lamp in self.lamps
         ]
         return json.dumps(out, indent=1, allow_nan=False) + "\n"
 
     def table(self):
-        """Header and rows of the verdicts, one row per check (numbers as floats, None when absent)."""
+        """Header and rows of the verdicts, one row per check (numbers as floats, None when absent).
+
+        Keys a layer on top added to the checks follow, an interval as two columns (``_low``, ``_high``).
+        """
+        extra = self._extra_keys()
         header = ["lamp", "criterion", "claimed", "measured", "margin", "pass", "note"]
+        header += [c for k in extra for c in ((f"{k}_low", f"{k}_high") if k.endswith("_interval95") else (k,))]
         result = {True: "pass", False: "fail", None: "cannot check"}
         rows = [
             [lamp["lamp"], c["criterion"], *(None if c[k] is None else float(c[k]) for k in ("claimed", "measured", "margin")),
-             result[c["pass"]], c["note"]]
+             result[c["pass"]], c["note"], *_extra_cells(c, extra)]
             for lamp in self.lamps
             for c in lamp["checks"]
         ]
@@ -362,6 +367,12 @@ class Verdicts:
         writer.writerow(header)
         writer.writerows([cell(v) for v in row] for row in rows)
         return buffer.getvalue()
+
+
+def _extra_cells(check, keys):
+    """The cells of the extra keys of one check: plain values, an interval as its two ends."""
+    values = [(key, plain(check.get(key))) for key in keys]
+    return [c for key, v in values for c in ((v or [None, None]) if key.endswith("_interval95") else [v])]
 
 
 def _suggestion(name, names):

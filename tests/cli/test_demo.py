@@ -28,6 +28,11 @@ def test_demo_writes_results(run, tmp_path):
         assert (out / figure).stat().st_size > 20_000, figure
     # Rated alone, the top folder is what it was: the subfolders are not part of the first demo rating.
     assert len(records) == 9
+    # One lamp's verdicts with the fictional laboratory's measurement uncertainty (ILAC-G8 guarded acceptance).
+    assert "How sure is the verdict? QF-A60-3000" in result.stdout and "decision rule: guarded acceptance" in result.stdout
+    judged = json.loads((out / "checks_uncertainty.json").read_text())
+    assert [lamp["lamp"] for lamp in judged] == ["QF-A60-3000"]
+    assert all(c["decision"] in ("pass", "conditional pass", "conditional fail", "fail") for c in judged[0]["checks"])
 
 
 # --- lampcalc cct ---

@@ -73,7 +73,7 @@ def test_outputs_replaced_together(run, tmp_path, monkeypatch):
     def broken(*args, **kwargs):
         raise OSError(28, "No space left on device")
 
-    monkeypatch.setattr("lampcalc.report.pdf.write_report", broken)
+    monkeypatch.setattr("lampcalc.report.document.Report.write", broken)
     result = run("rate", *demo_files(), "--json", json_out, "--report", pdf_out)
     assert result.exit_code == 2 and "none was changed" in result.stderr
     assert json_out.read_text() == "old json" and pdf_out.read_text() == "old report"

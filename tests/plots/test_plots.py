@@ -138,3 +138,26 @@ def test_locus_figure_marks_the_computed_chromaticities():
         np.testing.assert_allclose(
             _xy_data(markers[f"lamp:{name}"])[0], [ratings["u_prime"][i], ratings["v_prime"][i]], atol=1e-12
         )
+
+
+def test_white_region_holds_every_quadrangle_whole():
+    # ANSI C78.377-2017 Table 1 quadrangles, 2200 K included (the issue found it clipped).
+    with figure_style():
+        fig = new_figure((6.0, 4.0))
+        ax = fig.add_subplot()
+        draw_chromaticity_diagram(ax, LAMPS, zoom=True)
+    (x0, x1), (y0, y1) = ax.get_xlim(), ax.get_ylim()
+    for nominal in NOMINAL_CCTS_K:
+        corners = category(nominal).corners_xy
+        assert np.all((corners[:, 0] > x0) & (corners[:, 0] < x1) & (corners[:, 1] > y0) & (corners[:, 1] < y1))
+
+
+def test_names_are_plain_text(tmp_path):
+    # "$\\foo$" is not math text: the label prints as typed, and saving does not fail.
+    with figure_style():
+        fig = new_figure()
+        ax = fig.add_subplot()
+        draw_chromaticity_diagram(ax, [("$\\foo$", (0.38, 0.38))], zoom=True)
+        save_figure(fig, tmp_path / "math.png")
+    labels = [t.get_text() for t in ax.texts if (t.get_gid() or "").startswith("label:")]
+    assert labels == ["$\\foo$"]

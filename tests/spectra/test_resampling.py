@@ -56,6 +56,19 @@ def test_sprague_matches_colour_science():
         np.testing.assert_allclose(row, SpragueInterpolator(wl, expected)(target), atol=1e-12)
 
 
+@pytest.mark.parametrize("step, offset", [(5.0, 0.37), (2.0, -0.8), (10.0, 3.3)])
+def test_sprague_on_shifted_axes_matches_colour_science(step, offset):
+    from colour.algebra import SpragueInterpolator
+
+    # A Monte Carlo draw shifts the measured wavelengths by a fraction of a nanometre: the grid then falls
+    # anywhere between the nodes, and near both ends. Reference library: colour-science's SpragueInterpolator.
+    rng = np.random.default_rng(4)
+    wl = np.arange(380.0, 781.0, step) + offset
+    y = rng.random(wl.size)
+    target = np.arange(np.ceil(wl[0]), np.floor(wl[-1]) + 1.0)
+    np.testing.assert_allclose(sprague(wl, y, target), SpragueInterpolator(wl, y)(target), atol=1e-12)
+
+
 def test_sprague_rings_around_a_narrow_line_linear_does_not():
     # PITFALLS: Sprague overshoots below zero around narrow emission lines; linear cannot.
     wl = np.arange(360.0, 835.0, 5.0)
