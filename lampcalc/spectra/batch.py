@@ -79,7 +79,8 @@ class SpectralBatch:
 
     def __post_init__(self):
         wl = np.asarray(self.wavelength_nm, dtype=float)
-        values = np.atleast_2d(np.asarray(self.values, dtype=float))
+        # Row-major: a lamp's sums then run in the same order whatever batch or slice holds it.
+        values = np.ascontiguousarray(np.atleast_2d(np.asarray(self.values, dtype=float)))
         if wl.ndim != 1 or wl.size < 2 or not np.all(np.diff(wl) > 0):
             raise ValueError("wavelength_nm must be a strictly increasing 1-D array of at least 2 values")
         if values.ndim != 2 or values.shape[1] != wl.size:
