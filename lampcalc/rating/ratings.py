@@ -4,11 +4,8 @@ Its JSON and CSV forms use the keys of :data:`FIELDS`, documented in
 ``docs/output-fields.md``.
 """
 
-import csv
-import io
-import json
-
-from ..io.serialise import cell, plain
+from ..io.serialise import plain
+from ..io.streamed_tables import csv_of_columns, json_of_columns
 
 #: Output fields in order: key -> description (with unit). Lists are noted as such.
 FIELDS = {
@@ -91,7 +88,8 @@ class Ratings:
     DataFrame, ``"cct_K" in ratings`` and iteration go over the keys and ``len`` is the
     number of lamps; :meth:`to_pandas` gives a DataFrame with list fields spread into columns.
     ``extras`` keeps what figures need but files do not: the spectra on the grid
-    (``"batch"``) and the TM-30 bin means (``"ref_ab_bins"``, ``"test_ab_bins"``).
+    (``"batch"``) and the TM-30 bin means (``"ref_ab_bins"``, ``"test_ab_bins"``); empty for
+    ratings rated in a stream that draws nothing (:mod:`lampcalc.rating.streaming`).
     """
 
     def __init__(self, columns, extras=None):
@@ -131,17 +129,14 @@ class Ratings:
         keys = self.output_keys()
         return [{k: plain(self.columns[k][i]) for k in keys} for i in range(len(self))]
 
+    def output_columns(self):
+        """The columns of :meth:`output_keys`, in order: what the JSON and CSV forms hold."""
+        return {k: self.columns[k] for k in self.output_keys()}
+
     def to_json(self):
         """JSON text: a list with one object per lamp."""
-        return json.dumps(self.records(), indent=1, allow_nan=False) + "\n"
+        return json_of_columns(self.output_columns())
 
     def to_csv(self):
         """CSV text: one row per lamp; list fields are joined with ';'."""
-        records = self.records()
-        keys = self.output_keys()
-        out = io.StringIO()
-        writer = csv.writer(out, lineterminator="\n")
-        writer.writerow(keys)
-        for rec in records:
-            writer.writerow([cell(rec[k]) for k in keys])
-        return out.getvalue()
+        return csv_of_columns(self.output_columns())
