@@ -98,6 +98,7 @@ _EXPORTS = {
     "rate_with_uncertainty": "rating.uncertainty",
     "coverage_interval": "rating.uncertainty",
     "slit_convolution": "rating.uncertainty",
+    "coverage_region": "rating.coverage_region",
     "DecisionRule": "verdicts.decision_rules",
     "ClaimDraws": "verdicts.claim_uncertainty",
     "judge_with_uncertainty": "verdicts.claim_uncertainty",

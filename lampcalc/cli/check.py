@@ -97,7 +97,7 @@ def check_and_write(files, claims_path, *, outputs=None, sets=None, centre="ansi
     if model is not None:
         rule = rule or DecisionRule()
         verdicts = judge_with_uncertainty(verdicts, claim_draws, rule)
-        click.echo("\n" + uncertainty_table(ratings) + "\n\n" + decision_text(verdicts, rule))
+        click.echo("\n" + uncertainty_table(ratings) + "\n\n" + decision_text(verdicts, rule, ratings))
     write_outputs(ratings, verdicts, outputs or {}, report_options)
     click.echo(CAUTION)
     duplicates = duplicate_names(tally.repeated_names())

@@ -8,14 +8,20 @@ import click
 from ..io.formats import SPECTRUM_SUFFIXES
 from ..report.caution import CAUTION
 from .common import Failure, collect_files, fail_on_input_errors, rate_batches, read_some, spectrum_options, write_text
+from .uncertainty import decision_options, rule_from_options, uncertainty_option
 
 
-def _side(path, recursive, reading, what):
+def _side(path, recursive, reading, what, model=None, stream=0):
     files = collect_files([path], recursive)
     if not files:
         raise Failure(f"{path}: no {what} spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
-    batches, errors = read_some(files, **reading)
-    return rate_batches(batches), errors
+    batches, errors = read_some(files, as_read=model is not None, **reading)
+    if model is None:
+        return rate_batches(batches), errors
+    from ..verdicts.comparison_uncertainty import KEPT
+    from .uncertainty import rate_with_model
+
+    return rate_with_model(batches, model, reading.get("interpolation"), keep=KEPT, stream=stream), errors
 
 
 def figure_paths(path, names):
@@ -39,21 +45,33 @@ def write_comparison_figures(path, reference, test, comparison):
 
 
 def compare_and_write(reference_path, test_path, *, limit=None, json_out=None, csv_out=None, figure_out=None,
-                      recursive=False, **reading):
-    """Read and rate both sides, compare, print and write. Returns the exit status (0, 1 or 2)."""
+                      recursive=False, uncertainty=None, rule=None, **reading):
+    """Read and rate both sides, compare, print and write. Returns the exit status (0, 1 or 2).
+
+    ``uncertainty``: a measurement-model file; both sides are then drawn independently and every
+    difference gets its uncertainty, the limit a decision under ``rule`` (a DecisionRule).
+    """
     import json
 
     from ..io.serialise import csv_text, plain, records
     from ..verdicts.comparison import compare_ratings
     from .compare_printouts import pair_detail, pairs_table
 
-    reference, errors = _side(reference_path, recursive, reading, "reference")
-    test, more = _side(test_path, recursive, reading, "test")
+    from .uncertainty import comparison_text, load_model
+
+    model = load_model(uncertainty)
+    reference, errors = _side(reference_path, recursive, reading, "reference", model, stream=1)
+    test, more = _side(test_path, recursive, reading, "test", model, stream=2)
     errors += more
     comparison = compare_ratings(reference, test, limit_delta_uv_prime=limit)
     click.echo(pairs_table(comparison))
     if len(comparison["pairs"]["test_name"]) == 1:
         click.echo("\n" + pair_detail(comparison))
+    if model is not None:
+        from ..verdicts.comparison_uncertainty import comparison_uncertainty
+
+        comparison = comparison_uncertainty(comparison, reference, test, rule)
+        click.echo("\n" + comparison_text(comparison, model))
     rows = records(comparison["pairs"])
     if json_out:
         doc = {"pairs": rows, **plain({k: v for k, v in comparison.items() if k != "pairs"})}
@@ -80,14 +98,18 @@ def compare_and_write(reference_path, test_path, *, limit=None, json_out=None, c
 @click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write one row per pair to this CSV file.")
 @click.option("--figure", "figure_out", type=click.Path(dir_okay=False),
               help="Draw both spectra and their ratio (.png, .svg or .pdf; one file per pair).")
+@uncertainty_option
+@decision_options
 @spectrum_options
 @fail_on_input_errors
-def compare(reference, test, limit, json_out, csv_out, figure_out, recursive, **reading):
+def compare(reference, test, limit, json_out, csv_out, figure_out, recursive, uncertainty, decision_rule, guard_band_k,
+            **reading):
     """Compare TEST spectra with REFERENCE spectra: colour shift Δu'v' and every rating's difference.
 
     REFERENCE and TEST are files (or, with -r, folders). One spectrum on each side is one
     pair; otherwise lamps are paired by name. Exit status 0 when every pair is within the
     limit (or no limit is given), 1 when one is not, 2 for bad input.
     """
+    rule = rule_from_options(uncertainty, decision_rule, guard_band_k)
     sys.exit(compare_and_write(reference, test, limit=limit, json_out=json_out, csv_out=csv_out,
-                               figure_out=figure_out, recursive=recursive, **reading))
+                               figure_out=figure_out, recursive=recursive, uncertainty=uncertainty, rule=rule, **reading))

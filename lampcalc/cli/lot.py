@@ -9,6 +9,7 @@ import click
 from ..io.formats import SPECTRUM_SUFFIXES
 from ..report.caution import CAUTION
 from .common import Failure, collect_files, fail_on_input_errors, rate_batches, read_some, spectrum_options, write_text
+from .uncertainty import uncertainty_option
 
 
 def _centre(centre_cct, claims):
@@ -60,8 +61,12 @@ def write_lot_figures(folder, lot, angles):
 
 
 def lot_and_write(files, *, claims_path=None, centre_cct=None, steps="ellipse", centre="ansi", limit=None,
-                  json_out=None, csv_out=None, figures_dir=None, **reading):
-    """Read, rate, summarise, check, print and write. Returns the exit status (0, 1 or 2)."""
+                  json_out=None, csv_out=None, figures_dir=None, uncertainty=None, **reading):
+    """Read, rate, summarise, check, print and write. Returns the exit status (0, 1 or 2).
+
+    ``uncertainty``: a measurement-model file; the lot's statistics then gain the uncertainty the
+    measurement adds to them (lampcalc.verdicts.lot_uncertainty).
+    """
     import json
 
     from ..verdicts.angles import angles_of, colour_over_angle
@@ -71,9 +76,21 @@ def lot_and_write(files, *, claims_path=None, centre_cct=None, steps="ellipse", 
 
     claims = read_lot_claims(claims_path) if claims_path else None
     nominal = _centre(centre_cct, claims)
-    batches, errors = read_some(files, **reading)
-    ratings = rate_batches(batches)
+    from .uncertainty import load_model, lot_uncertainty_text, rate_with_model
+
+    model = load_model(uncertainty)
+    batches, errors = read_some(files, as_read=model is not None, **reading)
+    if model is None:
+        ratings = rate_batches(batches)
+    else:
+        from ..verdicts.lot_uncertainty import KEPT
+
+        ratings = rate_with_model(batches, model, reading.get("interpolation"), keep=KEPT)
     lot = lot_statistics(ratings, nominal_cct_K=nominal, steps=steps, centre=centre)
+    if model is not None:
+        from ..verdicts.lot_uncertainty import lot_uncertainty
+
+        lot = lot_uncertainty(lot, ratings, steps=steps, centre=centre)
     with_angle = sum(math.isfinite(a) for a in angles_of(ratings))
     if limit is not None and with_angle < len(ratings):
         raise Failure(f"--limit-delta-uv-prime needs an angle for every spectrum; {len(ratings) - with_angle} of "
@@ -82,6 +99,8 @@ def lot_and_write(files, *, claims_path=None, centre_cct=None, steps="ellipse", 
     verdicts = check_lot_claims(claims, lot) if claims else None
     click.echo(lot_text(lot, over_angle=angles is not None) + "\n")
     click.echo(statistics_table(lot))
+    if model is not None:
+        click.echo("\n" + lot_uncertainty_text(lot))
     if 0 < with_angle < len(ratings):
         click.echo(f"\n{len(ratings) - with_angle} of {len(ratings)} spectra carry no angle: no colour over angle")
     if angles is not None:
@@ -121,9 +140,11 @@ def lot_and_write(files, *, claims_path=None, centre_cct=None, steps="ellipse", 
 @click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write the lot's summary as one CSV row.")
 @click.option("--figures", "figures_dir", type=click.Path(file_okay=False),
               help="Write the lot's figures (PNG) into this folder.")
+@uncertainty_option
 @spectrum_options
 @fail_on_input_errors
-def lot(paths, claims_path, centre_cct, steps, centre, limit, json_out, csv_out, figures_dir, recursive, **reading):
+def lot(paths, claims_path, centre_cct, steps, centre, limit, json_out, csv_out, figures_dir, recursive, uncertainty,
+        **reading):
     """Summarise many samples of one product: statistics, colour spread, bins, claims.
 
     When every spectrum carries an angle of emission (angle_deg), also the colour over
@@ -134,4 +155,5 @@ def lot(paths, claims_path, centre_cct, steps, centre, limit, json_out, csv_out,
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
     sys.exit(lot_and_write(files, claims_path=claims_path, centre_cct=centre_cct, steps=steps, centre=centre,
-                           limit=limit, json_out=json_out, csv_out=csv_out, figures_dir=figures_dir, **reading))
+                           limit=limit, json_out=json_out, csv_out=csv_out, figures_dir=figures_dir,
+                           uncertainty=uncertainty, **reading))

@@ -86,25 +86,7 @@ def legend_of(flags, counts=None):
     return "\n".join(f"  {flag}{count(flag)}: {explain(flag)}" for flag in sorted(set(flags)))
 
 
-#: Labels and formats of the uncertainty decision table (cli/uncertainty.py) and the words of the lot
-#: and comparison tables (lot_printouts, compare_printouts); the claims check's verdict table uses
-#: lampcalc.verdicts.wording.
-CRITERIA = {
-    # criterion: (label, claimed format, value format, unit)
-    "ansi_quadrangle": ("ANSI quadrangle", "{:g} K", "{:.0f} K", "e-3 uv"),
-    "bin": ("bin", "{:g} K", "{:.0f} K", "e-3 uv"),
-    "ansi_cct_K": ("ANSI target CCT", "{:g} K", "{:.0f} K", "K"),
-    "ansi_duv": ("ANSI target Duv", "{:+.4f}", "{:+.4f}", ""),
-    "sdcm_steps": ("colour consistency", "<= {:g} steps", "{:.2f} steps", "steps"),
-    "ra": ("Ra", ">= {:g}", "{:.1f}", ""),
-    "r9": ("R9", ">= {:g}", "{:.1f}", ""),
-    "rf": ("Rf", ">= {:g}", "{:.1f}", ""),
-    "rg_min": ("Rg", ">= {:g}", "{:.1f}", ""),
-    "rg_max": ("Rg", "<= {:g}", "{:.1f}", ""),
-    "ler_lm_per_W": ("LER", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
-    "efficacy_lm_per_W": ("lamp efficacy", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
-    "spectrum": ("spectrum", "{}", "{}", ""),
-}
+#: A result in the lot and comparison tables (lot_printouts, compare_printouts).
 RESULT = {True: "holds", False: "FAILS", None: "not shown"}
 
 

@@ -73,6 +73,11 @@ FIELDS = {
     "melanopic_edi_lx": "melanopic equivalent daylight (D65) illuminance, lx (spectra in W/(m2 nm) only)",
     "flags": "conditions that qualify the numbers (list of strings, see docs/output-fields.md)",
 }
+#: Output fields of some runs only, after those of FIELDS: key -> description.
+RUN_FIELDS = {
+    "uncertainty_flags_in_draws": "with --uncertainty: validity flags that part of the Monte Carlo draws carry and the "
+    "spectrum as measured does not, or the reverse, each with its share of the draws (list of strings)",
+}
 
 
 class Ratings:
@@ -110,7 +115,8 @@ class Ratings:
 
     def output_keys(self):
         """The keys of the JSON and CSV files, in :data:`FIELDS` order; a key's ``_u`` and ``_interval95`` follow it."""
-        return [k for key in FIELDS for k in (key, f"{key}_u", f"{key}_interval95") if k in self.columns]
+        keys = [k for key in FIELDS for k in (key, f"{key}_u", f"{key}_interval95") if k in self.columns]
+        return keys + [k for k in RUN_FIELDS if k in self.columns]
 
     def to_pandas(self):
         """A pandas DataFrame, one row per lamp; list fields spread into columns (pandas optional)."""

@@ -12,6 +12,7 @@ list field                          columns
 ``hue_shift_hue_bins_rad``          ``hue_shift_h01_rad`` … ``hue_shift_h16_rad``
 ``ler_range_nm``                    ``ler_range_start_nm``, ``ler_range_end_nm``
 ``flags``                           ``flags``: the flags joined with ``"; "``
+``uncertainty_flags_in_draws``      the same, joined with ``"; "``
 ==================================  ==============================================
 
 With ``--uncertainty`` each key's ``_u`` columns follow its columns and each ``_interval95``
@@ -33,6 +34,9 @@ SPREAD = {
     "ler_range_nm": ("ler_range_start_nm", "ler_range_end_nm"),
 }
 
+#: Lists of words, joined into one cell.
+JOINED = ("flags", "uncertainty_flags_in_draws")
+
 
 def wide_columns(ratings):
     """``{column name: [value per lamp]}`` with plain Python values (None for NaN), lists spread.
@@ -48,7 +52,7 @@ def wide_columns(ratings):
     for key in ratings.keys():
         column = [plain(v) for v in ratings.columns[key]]
         base, suffix = _companion(key, ratings)
-        if key == "flags":
+        if key in JOINED:
             out[key] = ["; ".join(f) for f in column]
         elif base in SPREAD:
             for j, name in enumerate(SPREAD[base]):
