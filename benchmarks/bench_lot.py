@@ -38,7 +38,7 @@ def invented(n, rng):
 
 def farthest_pair_side_by_side(n=20_000):
     points = np.random.default_rng(1).normal(0.0, 1.0, (n, 2))
-    spread._hull_vertices(points[:10])  # import SciPy's Qhull before timing
+    spread.hull_vertices(points[:10])  # import SciPy's Qhull before timing
     start = time.perf_counter()
     hull = spread.farthest_pair(points)
     t_hull = time.perf_counter() - start

@@ -192,6 +192,23 @@ def set_options(fn):
     return fn
 
 
+def workers_option(fn):
+    """The ``--workers`` option of the commands that rate any number of spectra (dask, optional)."""
+
+    def check(ctx, param, value):
+        if value > 1:
+            import importlib.util
+
+            if importlib.util.find_spec("dask") is None:
+                raise Failure(f"--workers {value} needs dask: pip install 'lampcalc[dask]'")
+        return value
+
+    return click.option(
+        "--workers", type=click.IntRange(min=1), default=1, show_default=True, metavar="N", callback=check,
+        help="Local processes that rate chunks of lamps side by side (needs lampcalc[dask]; docs/scale.md).",
+    )(fn)
+
+
 def spectrum_options(fn):
     """Options shared by the commands that read spectrum files."""
     for option in reversed(

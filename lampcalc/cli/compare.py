@@ -18,6 +18,7 @@ from .common import (
     spectrum_options,
 )
 from .outputs import prepare_outputs, writable, write_documents
+from .uncertainty import decision_options, rule_from_options, uncertainty_option
 
 
 def side_files(path, recursive, what):
@@ -28,9 +29,14 @@ def side_files(path, recursive, what):
     return files
 
 
-def _side(files, reading):
-    batches, errors = read_some(files, **reading)
-    return rate_batches(batches), errors
+def _side(files, reading, model=None, stream=0):
+    batches, errors = read_some(files, as_read=model is not None, **reading)
+    if model is None:
+        return rate_batches(batches), errors
+    from ..verdicts.comparison_uncertainty import KEPT
+    from .uncertainty import rate_with_model
+
+    return rate_with_model(batches, model, reading.get("interpolation"), keep=KEPT, stream=stream), errors
 
 
 def figure_paths(path, names):
@@ -63,22 +69,32 @@ def write_comparison_figures(path, reference, test, comparison):
 
 
 def compare_and_write(reference_files, test_files, *, limit=None, outputs=None, report_options=None, figure_out=None,
-                      **reading):
+                      uncertainty=None, rule=None, **reading):
     """Read and rate both sides, compare, print and write. Returns the exit status (0, 1 or 2).
 
-    ``outputs``: from :func:`~lampcalc.cli.outputs.prepare_outputs` (json, csv, xlsx, report), written together.
+    ``outputs``: from :func:`~lampcalc.cli.outputs.prepare_outputs` (json, csv, xlsx, report), written together;
+    ``uncertainty``: a measurement-model file; both sides are then drawn independently and every
+    difference gets its uncertainty, the limit a decision under ``rule`` (a DecisionRule).
     """
     from ..verdicts.comparison import compare_ratings
     from .compare_printouts import pair_detail, pairs_table
     from .set_outputs import comparison_csv, comparison_document, comparison_sheets, json_text
 
-    reference, errors = _side(reference_files, reading)
-    test, more = _side(test_files, reading)
+    from .uncertainty import comparison_text, load_model
+
+    model = load_model(uncertainty)
+    reference, errors = _side(reference_files, reading, model, stream=1)
+    test, more = _side(test_files, reading, model, stream=2)
     errors += more
     comparison = compare_ratings(reference, test, limit_delta_uv_prime=limit)
     click.echo(pairs_table(comparison))
     if len(comparison["pairs"]["test_name"]) == 1:
         click.echo("\n" + pair_detail(comparison))
+    if model is not None:
+        from ..verdicts.comparison_uncertainty import comparison_uncertainty
+
+        comparison = comparison_uncertainty(comparison, reference, test, rule)
+        click.echo("\n" + comparison_text(comparison, model))
     write_documents(
         outputs or {}, json=lambda: json_text(comparison_document(comparison)), csv=lambda: comparison_csv(comparison),
         sheets=lambda: comparison_sheets(comparison),
@@ -108,10 +124,12 @@ def compare_and_write(reference_files, test_files, *, limit=None, outputs=None, 
 @click.option("--figure", "figure_out", type=click.Path(dir_okay=False),
               help="Draw both spectra and their ratio (.png, .svg or .pdf; one file per pair).")
 @report_options
+@uncertainty_option
+@decision_options
 @spectrum_options
 @fail_on_input_errors
 def compare(reference, test, limit, json_out, csv_out, xlsx_out, report_out, figure_out, report_info, paper, recursive,
-            **reading):
+            uncertainty, decision_rule, guard_band_k, **reading):
     """Compare TEST spectra with REFERENCE spectra: colour shift Δu'v' and every rating's difference.
 
     REFERENCE and TEST are files (or, with -r, folders). One spectrum on each side is one
@@ -119,8 +137,10 @@ def compare(reference, test, limit, json_out, csv_out, xlsx_out, report_out, fig
     limit (or no limit is given), 1 when one is not, 2 for bad input.
     """
     info = read_report_options(report_out, report_info, paper)
+    rule = rule_from_options(uncertainty, decision_rule, guard_band_k)
     sides = side_files(reference, recursive, "reference"), side_files(test, recursive, "test")
-    outputs = prepare_outputs(sides[0] + sides[1], json=json_out, csv=csv_out, xlsx=xlsx_out, report=report_out)
+    inputs = sides[0] + sides[1] + ([uncertainty] if uncertainty else [])
+    outputs = prepare_outputs(inputs, json=json_out, csv=csv_out, xlsx=xlsx_out, report=report_out)
     figure = figure_file(figure_out) if figure_out else None
-    sys.exit(compare_and_write(*sides, limit=limit, outputs=outputs, figure_out=figure,
-                               report_options={"report_info": info, "paper": paper}, **reading))
+    sys.exit(compare_and_write(*sides, limit=limit, outputs=outputs, figure_out=figure, uncertainty=uncertainty,
+                               rule=rule, report_options={"report_info": info, "paper": paper}, **reading))

@@ -54,7 +54,8 @@ def demo(out_dir):
 
 def demo_uncertainty(out):
     """One lamp's verdicts with the measurement uncertainty of the supplier's own laboratory."""
-    from ..io.demo_data import demo_claims, demo_folder, demo_measurement_model
+    from ..io.demo_data import demo_claims, demo_folder, demo_measurement_model, demo_report_info
+    from ..report.report_info import read_report_info
     from ..verdicts.decision_rules import DecisionRule
 
     lamp, model = "QF-A60-3000", demo_measurement_model()
@@ -63,9 +64,10 @@ def demo_uncertainty(out):
         f"({model.name}), with guarded acceptance:\n"
     )
     files = [demo_folder() / "quillfen_led_range_1nm.csv"]
+    outputs = prepare_outputs(files, json=out / "checks_uncertainty.json", report=out / "report_uncertainty.pdf")
     status, _ = check_and_write(
-        files, demo_claims(), outputs=prepare_outputs(files, json=out / "checks_uncertainty.json"),
-        quiet_table=True, uncertainty=model, rule=DecisionRule("guarded"), lamps=(lamp,),
+        files, demo_claims(), outputs=outputs, quiet_table=True, uncertainty=model, rule=DecisionRule("guarded"),
+        lamps=(lamp,), report_options={"report_info": read_report_info(demo_report_info())},
     )
     if status == 2:
         sys.exit(2)

@@ -21,6 +21,7 @@ from .common import (
     spectrum_options,
 )
 from .outputs import prepare_outputs, writable, write_documents
+from .uncertainty import uncertainty_option
 
 
 def _centre(centre_cct, claims):
@@ -55,25 +56,38 @@ def write_lot_figures(folder, lot, angles):
 
 
 def lot_and_write(files, *, claims_path=None, centre_cct=None, steps="ellipse", sets=None, centre="ansi", limit=None,
-                  outputs=None, report_options=None, figures_dir=None, **reading):
+                  outputs=None, report_options=None, figures_dir=None, uncertainty=None, **reading):
     """Read, rate, summarise, check, print and write. Returns the exit status (0, 1 or 2).
 
     ``steps``: "ellipse", "circle" or a user's EllipseSet; ``sets``: (bin set, ellipse set)
     the samples are rated with (:func:`~lampcalc.cli.common.read_sets`); ``outputs``: from
-    :func:`~lampcalc.cli.outputs.prepare_outputs` (json, csv, xlsx, report), written together.
+    :func:`~lampcalc.cli.outputs.prepare_outputs` (json, csv, xlsx, report), written together;
+    ``uncertainty``: a measurement-model file; the lot's statistics then gain the uncertainty the
+    measurement adds to them (lampcalc.verdicts.lot_uncertainty).
     """
     from ..verdicts.angles import angles_of, colour_over_angle
     from ..verdicts.lot import lot_statistics
     from ..verdicts.lot_claims import check_lot_claims, read_lot_claims
     from .lot_printouts import angle_text, lot_claims_text, lot_text, statistics_table
     from .set_outputs import json_text, lot_csv, lot_document, lot_sheets
+    from .uncertainty import load_model, lot_uncertainty_text, rate_with_model
 
     claims = read_lot_claims(claims_path) if claims_path else None
     nominal = _centre(centre_cct, claims)
-    batches, errors = read_some(files, **reading)
+    model = load_model(uncertainty)
+    batches, errors = read_some(files, as_read=model is not None, **reading)
     claimed = None if nominal is None else {name.casefold(): nominal for b in batches for name in b.names}
-    ratings = rate_batches(batches, claimed, sets)
+    if model is None:
+        ratings = rate_batches(batches, claimed, sets)
+    else:
+        from ..verdicts.lot_uncertainty import KEPT
+
+        ratings = rate_with_model(batches, model, reading.get("interpolation"), claimed, sets, keep=KEPT)
     lot = lot_statistics(ratings, nominal_cct_K=nominal, steps=steps, centre=centre)
+    if model is not None:
+        from ..verdicts.lot_uncertainty import lot_uncertainty
+
+        lot = lot_uncertainty(lot, ratings, steps=steps, centre=centre)
     with_angle = sum(math.isfinite(a) for a in angles_of(ratings))
     if limit is not None and with_angle < len(ratings):
         raise Failure(f"--limit-delta-uv-prime needs an angle for every spectrum; {len(ratings) - with_angle} of "
@@ -82,6 +96,8 @@ def lot_and_write(files, *, claims_path=None, centre_cct=None, steps="ellipse", 
     verdicts = check_lot_claims(claims, lot) if claims else None
     click.echo(lot_text(lot, over_angle=angles is not None) + "\n")
     click.echo(statistics_table(lot))
+    if model is not None:
+        click.echo("\n" + lot_uncertainty_text(lot))
     if 0 < with_angle < len(ratings):
         click.echo(f"\n{len(ratings) - with_angle} of {len(ratings)} spectra carry no angle: no colour over angle")
     if angles is not None:
@@ -131,10 +147,11 @@ def lot_and_write(files, *, claims_path=None, centre_cct=None, steps="ellipse", 
               help="Write the lot's figures (PNG) into this folder.")
 @report_options
 @set_options
+@uncertainty_option
 @spectrum_options
 @fail_on_input_errors
 def lot(paths, claims_path, centre_cct, steps, centre, limit, json_out, csv_out, xlsx_out, report_out, figures_dir,
-        report_info, paper, recursive, bins, ellipses, **reading):
+        report_info, paper, recursive, bins, ellipses, uncertainty, **reading):
     """Summarise many samples of one product: statistics, colour spread, bins, claims.
 
     When every spectrum carries an angle of emission (angle_deg), also the colour over
@@ -146,9 +163,9 @@ def lot(paths, claims_path, centre_cct, steps, centre, limit, json_out, csv_out,
     files = collect_files(paths, recursive)
     if not files:
         raise Failure("no spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
-    inputs = [*files, *(p for p in (claims_path, bins, ellipses) if p)]
+    inputs = [*files, *(p for p in (claims_path, bins, ellipses, uncertainty) if p)]
     outputs = prepare_outputs(inputs, json=json_out, csv=csv_out, xlsx=xlsx_out, report=report_out)
     folder = figures_folder(figures_dir) if figures_dir else None
     sys.exit(lot_and_write(files, claims_path=claims_path, centre_cct=centre_cct, steps=sets[1] if ellipses else steps,
                            sets=sets, centre=centre, limit=limit, outputs=outputs, figures_dir=folder,
-                           report_options={"report_info": info, "paper": paper}, **reading))
+                           report_options={"report_info": info, "paper": paper}, uncertainty=uncertainty, **reading))

@@ -6,6 +6,7 @@ and then lost. After the work the outputs of one run (JSON, CSV, XLSX, PDF) are 
 temporary files and renamed together: all new, or all as they were.
 """
 
+import contextlib
 from pathlib import Path
 
 import click
@@ -120,6 +121,99 @@ def write_documents(outputs, *, json=None, csv=None, sheets=None, report=None):
                     write_workbook(tmp[path], [*sheets(), notes])
                 else:
                     write_report_file(tmp[path], shown_as=path, **report())
+    except OSError as err:
+        raise Failure(f"cannot write the outputs ({err.strerror or err}: {err.filename or ''}); none was changed") from None
+    for kind, path in outputs.items():
+        if kind != "report":
+            click.echo(f"wrote {path}", err=True)
+
+
+class _NoLamps(Exception):
+    """No lamp was rated: the outputs stay as they were."""
+
+
+class _Sink:
+    """Writes each chunk of ratings to the temporary files of the outputs (JSON, CSV, workbook)."""
+
+    def __init__(self, outputs, tmp, handles, report_options=None):
+        from ..io.streamed_tables import JsonRows
+        from ..io.workbook import WorkbookWriter
+        from ..rating.wide_columns import FlagLamps
+
+        self.outputs, self.tmp, self.count = outputs, tmp, 0
+        self.json = JsonRows(handles["json"]) if "json" in handles else None
+        self.csv = handles.get("csv")  # the open file, then its CsvRows once the header is known
+        self.book = WorkbookWriter() if "xlsx" in outputs else None
+        self.flags = FlagLamps()
+        self.report = [] if "report" in outputs else None  # ratings with their spectra, for the report's pages
+        self.report_options = report_options or {}
+
+    def write(self, ratings):
+        from ..io.streamed_tables import CsvRows
+        from ..io.workbook import MAX_ROWS
+        from ..rating.wide_columns import ratings_rows
+
+        columns = ratings.output_columns()
+        if self.json:
+            self.json.write(columns)
+        if self.csv is not None:
+            if not isinstance(self.csv, CsvRows):
+                self.csv = CsvRows(self.csv, list(columns))
+            self.csv.write(columns)
+        if self.book is not None:
+            if self.count + len(ratings) >= MAX_ROWS:
+                raise Failure(f"{self.outputs['xlsx']}: a workbook sheet holds {MAX_ROWS - 1:,} lamps at most; "
+                              "write this many with --csv or --json")
+            header, rows = ratings_rows(ratings)
+            if self.count == 0:
+                self.book.add_sheet("ratings", header)
+            self.book.add_rows(rows)
+            self.flags.add(ratings["name"], ratings["flags"])
+        if self.report is not None:
+            self.report.append(ratings)
+        self.count += len(ratings)
+
+    def finish(self):
+        from ..rating.streaming import join_ratings
+        from ..report.caution import CAUTION
+
+        if self.json:
+            self.json.finish()
+        if self.book is not None:
+            self.book.add_sheet("flags", ["flag", "meaning", "lamps"])
+            self.book.add_rows(self.flags.rows())
+            self.book.add_sheet("notes", ["note"])
+            self.book.add_rows([[CAUTION], ["Keys and units: docs/output-fields.md"]])
+            self.book.save(self.tmp[self.outputs["xlsx"]])
+        if self.report is not None:
+            path = self.outputs["report"]
+            write_report_file(self.tmp[path], join_ratings(self.report), None, shown_as=path, **self.report_options)
+
+
+@contextlib.contextmanager
+def streamed_outputs(outputs, report_options=None):
+    """A sink for chunks of ratings (``sink.write(ratings)``), written into the outputs as they come.
+
+    The outputs are temporary files until the block ends; then they are renamed together
+    (all new, or all as they were: :func:`~lampcalc.io.atomic.replaced_together`). When no
+    lamp was written, or on any error or interruption, every output stays as it was.
+    """
+    from ..io.atomic import replaced_together
+
+    try:
+        with replaced_together(outputs.values()) as tmp, contextlib.ExitStack() as files:
+            handles = {
+                kind: files.enter_context(open(tmp[path], "w", encoding="utf-8", newline=""))
+                for kind, path in outputs.items()
+                if kind in ("json", "csv")
+            }
+            sink = _Sink(outputs, tmp, handles, report_options)
+            yield sink
+            if sink.count == 0:
+                raise _NoLamps
+            sink.finish()
+    except _NoLamps:
+        return
     except OSError as err:
         raise Failure(f"cannot write the outputs ({err.strerror or err}: {err.filename or ''}); none was changed") from None
     for kind, path in outputs.items():

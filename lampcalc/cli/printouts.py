@@ -4,9 +4,7 @@ from ..rating.flags import doubtful_keys, explain
 from .common import flagged, fmt
 
 
-def rating_table(ratings):
-    from .text_table import format_table
-
+def _rating_rows(ratings):
     rows = []
     for r in ratings.records():
         doubt = doubtful_keys(r["flags"])
@@ -29,8 +27,21 @@ def rating_table(ratings):
                 ", ".join(r["flags"]) or "-",
             ]
         )
+    return rows
+
+
+def rating_table(ratings, last=None, total=None):
+    """The ratings table; with ``last``, the first lamps, a row '…' and the last lamps of ``total``."""
+    from .text_table import format_table
+
+    rows = _rating_rows(ratings)
+    if last is not None:
+        rows += [["…"] + [""] * 13] + _rating_rows(last)
     headers = ["lamp", "CCT K", "Duv", "ANSI", "steps", "Ra", "R9", "Rf", "Rg", "LER lm/W", "lamp lm/W", "S/P", "mel-DER", "flags"]
-    return format_table(headers, rows, "lrrrrrrrrrrrrl")
+    table = format_table(headers, rows, "lrrrrrrrrrrrrl")
+    if last is not None:
+        table += f"\n(the first {len(ratings)} and the last {len(last)} of {total:,} lamps are shown)"
+    return table
 
 
 TABLE_NOTES = (
@@ -43,30 +54,36 @@ TABLE_NOTES = (
 )
 
 
+def echo_ratings(tally, outputs=()):
+    """Print the ratings of a run (:class:`~lampcalc.rating.tally.RunTally`): the table, its notes, the flags' words.
+
+    A run of more than :data:`~lampcalc.rating.tally.SHOWN` lamps shows its first and last
+    lamps, and the number of lamps each flag qualifies.
+    """
+    import click
+
+    click.echo(rating_table(*tally.shown(), tally.count))
+    if not tally.all_shown and not {"json", "csv", "xlsx"} & set(outputs):
+        click.echo("(write every lamp's ratings with --json, --csv or --xlsx)")
+    click.echo(TABLE_NOTES)
+    if legend := legend_of(tally.flags.lamps, None if tally.all_shown else tally.flags.counts):
+        click.echo("Flags:\n" + legend)
+
+
 def flag_legend(ratings):
     """The words of every flag the lamps carry, one per line (empty when none)."""
-    raised = sorted({flag for flags in ratings["flags"] for flag in flags})
-    return "\n".join(f"  {flag}: {explain(flag)}" for flag in raised)
+    return legend_of(flag for flags in ratings["flags"] for flag in flags)
 
 
-#: Labels and formats of the uncertainty decision table (cli/uncertainty.py); the claims check's verdict
-#: table and the lot and comparison tables use lampcalc.verdicts.wording and lampcalc.verdicts.lot_wording.
-CRITERIA = {
-    # criterion: (label, claimed format, value format, unit)
-    "ansi_quadrangle": ("ANSI quadrangle", "{:g} K", "{:.0f} K", "e-3 uv"),
-    "bin": ("bin", "{:g} K", "{:.0f} K", "e-3 uv"),
-    "ansi_cct_K": ("ANSI target CCT", "{:g} K", "{:.0f} K", "K"),
-    "ansi_duv": ("ANSI target Duv", "{:+.4f}", "{:+.4f}", ""),
-    "sdcm_steps": ("colour consistency", "<= {:g} steps", "{:.2f} steps", "steps"),
-    "ra": ("Ra", ">= {:g}", "{:.1f}", ""),
-    "r9": ("R9", ">= {:g}", "{:.1f}", ""),
-    "rf": ("Rf", ">= {:g}", "{:.1f}", ""),
-    "rg_min": ("Rg", ">= {:g}", "{:.1f}", ""),
-    "rg_max": ("Rg", "<= {:g}", "{:.1f}", ""),
-    "ler_lm_per_W": ("LER", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
-    "efficacy_lm_per_W": ("lamp efficacy", ">= {:g} lm/W", "{:.1f} lm/W", "lm/W"),
-    "spectrum": ("spectrum", "{}", "{}", ""),
-}
+def legend_of(flags, counts=None):
+    """The words of each of ``flags``, one per line in alphabetical order (empty when none).
+
+    ``counts``: lamps per flag, said for each flag (for a run whose table shows only some lamps).
+    """
+    def count(flag):
+        return "" if counts is None else f" ({counts[flag]:,} lamp{'s' if counts[flag] != 1 else ''})"
+
+    return "\n".join(f"  {flag}{count(flag)}: {explain(flag)}" for flag in sorted(set(flags)))
 
 
 def verdict_text(verdicts, ratings=None):

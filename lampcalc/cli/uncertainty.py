@@ -1,4 +1,4 @@
-"""What ``--uncertainty`` adds to ``rate`` and ``check``: its options, the Monte Carlo run and its tables."""
+"""What ``--uncertainty`` adds to ``rate``, ``check``, ``compare`` and ``lot``: its options, the Monte Carlo run, its tables."""
 
 import math
 import sys
@@ -49,10 +49,11 @@ def rule_from_options(uncertainty, name, k):
     return DecisionRule(name or "simple", 2.0 if k is None else k)
 
 
-def rate_with_model(batches, model, interpolation, nominal=None, sets=None, on_draws=None):
+def rate_with_model(batches, model, interpolation, nominal=None, sets=None, on_draws=None, **kept):
     """Rate the batches (as read) with the model's uncertainty; a progress bar on a terminal.
 
-    ``nominal``: claimed nominal CCTs keyed by casefolded lamp name; ``sets``: (bin set, ellipse set).
+    ``nominal``: claimed nominal CCTs keyed by casefolded lamp name; ``sets``: (bin set, ellipse set);
+    ``kept``: ``keep`` and ``stream`` of rate_with_uncertainty.
     """
     from ..rating.uncertainty import rate_with_uncertainty
 
@@ -64,6 +65,7 @@ def rate_with_model(batches, model, interpolation, nominal=None, sets=None, on_d
         "bin_set": bin_set,
         "ellipse_set": ellipse_set,
         "on_draws": on_draws,
+        **kept,
     }
     if sys.stderr.isatty():
         label = f"Monte Carlo, {model.draws} draws a lamp"
@@ -89,13 +91,13 @@ def _interval(interval, spec, doubtful):
 
 def uncertainty_table(ratings):
     """The 95 % intervals of the main ratings, one row per lamp, and what they mean."""
-    from ..rating.flags import doubtful_keys
+    from ..rating.flags import doubtful_interval_keys, draw_flag_lines
     from .text_table import format_table
 
     model = ratings.extras["uncertainty"].model
     rows = []
     for r in ratings.records():
-        doubt = doubtful_keys(r["flags"])
+        doubt = doubtful_interval_keys(r["flags"], r["uncertainty_flags_in_draws"])
         row = [r["name"]]
         for _, key, spec in _COLUMNS:
             column, index = key if isinstance(key, tuple) else (key, None)
@@ -109,6 +111,9 @@ def uncertainty_table(ratings):
     table = format_table([headers[j] for j in keep], [[row[j] for j in keep] for row in rows], "l" + "r" * (len(keep) - 1))
     where = f" ({model.source})" if model.source else ""
     precision = 100.0 / math.sqrt(2.0 * (model.draws - 1))
+    crossed = [f"{r['name']}: {line}" for r in ratings.records() for line in draw_flag_lines(r["uncertainty_flags_in_draws"])]
+    if crossed:
+        table += "\n(interval): in doubt, in part of the draws or all (see the flags):\n" + "\n".join("  " + c for c in crossed)
     return (
         f"Measurement uncertainty{where}: {model.describe()}\n{table}\n"
         "[low, high]: 95 % coverage interval over the Monte Carlo draws (JCGM 101:2008 7.7.2, probabilistically\n"
@@ -117,49 +122,132 @@ def uncertainty_table(ratings):
     )
 
 
-def _share(p):
-    """A share of draws in %, rounded away from 0 % and 100 % unless it is exactly that."""
-    if p is None:
-        return "-"
-    if p in (0.0, 1.0):
-        return f"{100 * p:.0f} %"
-    tenths = math.floor(1000 * p) if p > 0.5 else math.ceil(1000 * p)
-    return f"{tenths / 10:.1f} %"
+def decision_text(verdicts, rule, ratings=None):
+    """Each claimed lamp's checks with the measured value's interval, the margin's uncertainty and the rule's outcome.
 
-
-def decision_text(verdicts, rule):
-    """Each claimed lamp's checks with the measured value's interval, the margin's uncertainty and the rule's outcome."""
+    The claims, values and margins read as in the verdict table (lampcalc.verdicts.wording); ``ratings``
+    gives the flags that put values and intervals in parentheses.
+    """
     from ..verdicts.decision_rules import OUTCOMES
-    from .printouts import CRITERIA
+    from ..verdicts.decision_wording import NOT_DECIDED, word_decisions
+    from ..verdicts.wording import pair_verdicts
     from .text_table import format_table
 
-    def number(value, spec, unit):
-        return "-" if value is None or not math.isfinite(value) else f"{value:{spec}} {unit}".strip()
-
+    records = ratings.records() if ratings is not None else []
+    flags = {id(lamp): (r["flags"], r.get("uncertainty_flags_in_draws")) for r, lamp in
+             zip(records, pair_verdicts([r["name"] for r in records], verdicts)) if lamp is not None}
     blocks = [f"With measurement uncertainty; decision rule: {rule.describe()}"]
     seen = set()
     for lamp in verdicts.lamps:
         if lamp["lamp"] in verdicts.missing:
             continue  # no spectrum: said with the verdicts
-        rows = []
-        for c in lamp["checks"]:
-            label, _, value_fmt, unit = CRITERIA[c["criterion"]]
-            interval = c["measured_interval95"]
-            shown = "-" if interval is None else "[" + ", ".join(value_fmt.format(v) for v in interval) + "]"
-            rows.append([
-                label, "-" if c["measured"] is None else value_fmt.format(c["measured"]), shown,
-                number(c["margin"], "+.4g", unit), number(c["margin_u"], ".3g", unit), number(c["guard_band"], ".3g", unit),
-                _share(c["conformance_probability"]), c["decision"] or "not decided",
-            ])
-            seen.add(c["decision"])
+        words = word_decisions(lamp, *flags.get(id(lamp), ((), ())))
+        rows = [[w.claim, w.measured, w.interval, w.margin, w.margin_u, w.guard_band, w.holding, w.decision] for w in words]
+        seen.update(w.outcome for w in words)
         table = format_table(
             ["claim", "measured", "95 % interval", "margin", "u(margin)", "guard band", "draws holding", "decision"],
-            rows, "llrrrrrl",
+            rows, "lrrrrrrl",
         )
-        blocks.append(f"{lamp['lamp']}: {lamp['decision'] or 'not decided'}\n" + "\n".join("  " + line for line in table.splitlines()))
+        blocks.append(f"{lamp['lamp']}: {lamp['decision'] or NOT_DECIDED}\n" + "\n".join("  " + line for line in table.splitlines()))
     legend = [f"{o}: {rule.explain(o)}" for o in OUTCOMES if o in seen]
     if None in seen:
-        legend.append("not decided: no measured value, or its uncertainty is unknown (a draw gave none)")
-    legend.append("draws holding: share of the Monte Carlo draws in which the claim holds; guard band: w of the rule")
+        legend.append(f"{NOT_DECIDED}: no measured value, or its uncertainty is unknown (a draw gave none)")
+    legend.append("draws holding: share of the Monte Carlo draws in which the claim holds; guard band: w of the rule; "
+                  "(interval): in doubt, see the flags")
     legend.append("The exit status follows the verdicts above (simple comparison with the claim), not these decisions.")
     return "\n\n".join(blocks) + "\n" + "\n".join(legend)
+
+
+#: The differences of the comparison's uncertainty table: (label, output key of the difference, key of its digits).
+_DIFFERENCES = (
+    ("Δu'v'", "delta_uv_prime", "u_prime"), ("ΔCCT K", "delta_cct_K", "cct_K"), ("ΔDuv", "delta_duv", "duv"),
+    ("ΔRa", "delta_ra", "ra"), ("ΔR9", "delta_r9", "ri"), ("ΔRf", "delta_rf", "rf"), ("ΔRg", "delta_rg", "rg"),
+    ("ΔLER lm/W", "delta_ler_lm_per_W", "ler_lm_per_W"),
+)
+
+
+def comparison_text(comparison, model):
+    """Each pair's differences with u and 95 % interval, and the decision against the limit."""
+    from ..verdicts.wording import format_share, format_uncertainty, format_value
+    from .text_table import format_table
+
+    from ..rating.flags import doubtful_keys
+
+    p = comparison["pairs"]
+    decided = "decision" in p
+    blocks = [f"With measurement uncertainty ({model.describe()}); reference and test drawn independently"]
+    for k in range(len(p["test_name"])):
+        rows = []
+        doubt = doubtful_keys(p["reference_flags"][k]) | doubtful_keys(p["test_flags"][k])
+        for label, key, digits in _DIFFERENCES:
+            if not math.isfinite(p[key][k]):
+                continue
+            decimals = 5 if digits == "u_prime" else None
+            low, high = p[f"{key}_interval95"][k]
+            shown = [format_value(digits, v, decimals=decimals, signed=key != "delta_uv_prime") for v in (p[key][k], low, high)]
+            row = [shown[0], format_uncertainty(p[f"{key}_u"][k]), f"[{shown[1]}, {shown[2]}]"]
+            rows.append([label, *(f"({text})" if digits in doubt else text for text in row)])
+        table = format_table(["difference", "measured", "u", "95 % interval"], rows, "lrrr")
+        lines = [f"{p['reference_name'][k]} -> {p['test_name'][k]}", *("  " + line for line in table.splitlines())]
+        if decided:
+            lines.append(
+                f"  limit {p['limit_delta_uv_prime'][k]:g}: margin {format_value('u_prime', p['margin_delta_uv_prime'][k], decimals=5, signed=True)}, "
+                f"u(margin) {format_uncertainty(p['margin_delta_uv_prime_u'][k])}, guard band "
+                f"{format_uncertainty(p['guard_band'][k])}, draws holding {format_share(float(p['conformance_probability'][k]))}: "
+                f"{p['decision'][k] or 'not decided'} ({p['decision_rule'][k]})"
+            )
+        blocks.append("\n".join(lines))
+    blocks.append(
+        "Δ: test - reference; u and the 95 % interval over the Monte Carlo draws (JCGM 101:2008). Δu'v' is a distance:\n"
+        "near zero its draws lie above the measured value. Effects both measurements share (one calibration) would\n"
+        "cancel in the differences; drawn independently they count twice. (values): outside the method's validity\n"
+        "for one side. The result above follows the measured values, not the decision."
+    )
+    return "\n\n".join(blocks)
+
+
+#: Rows of the lot's colour in the uncertainty table: (label, key, digits key, decimals).
+_LOT_COLOUR = (
+    ("mean x", "mean_x", "x", 5), ("mean y", "mean_y", "y", 5), ("mean u'", "mean_u_prime", "u_prime", 5),
+    ("mean v'", "mean_v_prime", "v_prime", 5), ("CCT of the mean point K", "mean_point_cct_K", "cct_K", None),
+    ("Duv of the mean point", "mean_point_duv", "duv", None),
+    *((f"within {k} steps %", f"within_{k}_steps_percent", "chroma_shift_hue_bins_percent", 1) for k in range(1, 8)),
+    ("ellipse semi-major (x, y)", "ellipse_semi_major_xy", "x", 5), ("ellipse semi-minor (x, y)", "ellipse_semi_minor_xy", "x", 5),
+    ("largest Δu'v' between samples", "max_pairwise_delta_uv_prime", "u_prime", 5),
+    ("largest Δu'v' from the mean", "max_delta_uv_prime_from_mean", "u_prime", 5),
+)
+
+
+def lot_uncertainty_text(lot):
+    """The lot's statistics with the uncertainty the measurement adds: the ratings' mean, sd, min, max, then its colour."""
+    from ..verdicts.lot import LOT_RATINGS
+    from ..verdicts.wording import format_uncertainty, format_value
+    from .lot_printouts import RATING_LABELS
+    from .text_table import format_table
+
+    def shown(key, digits, decimals):
+        if lot.get(f"{key}_u") is None or not math.isfinite(lot[f"{key}_u"]):
+            return None
+        low, high = lot[f"{key}_interval95"]
+        signed = False if key.endswith("_sd") else None  # a spread has no sign
+        value, low, high = (format_value(digits, v, decimals=decimals, signed=signed) for v in (lot[key], low, high))
+        return [value, format_uncertainty(lot[f"{key}_u"]), f"[{low}, {high}]"]
+
+    rows = []
+    for key in LOT_RATINGS:
+        label, unit, spec = RATING_LABELS[key]
+        decimals = int(spec.lstrip("+.")[0]) if spec.lstrip("+").startswith(".") and spec.endswith("f") else None
+        stats = [shown(f"{key}_{s}", key, decimals) for s in ("mean", "sd", "min", "max")]
+        if any(stats):
+            rows.append([label, unit, *(cell for stat in stats for cell in (stat or ["-", "-", "-"])[:2])])
+    table = format_table(["rating", "unit", "mean", "u", "sd", "u", "min", "u", "max", "u"], rows, "llrrrrrrrr")
+    colour = [[label, *found] for label, key, digits, decimals in _LOT_COLOUR if (found := shown(key, digits, decimals))]
+    colour_table = format_table(["lot's colour", "value", "u", "95 % interval"], colour, "lrrr")
+    return (
+        f"Uncertainty the measurement adds to the lot's statistics ({lot['measurement_model']}):\n{table}\n\n"
+        f"{colour_table}\n"
+        "u: standard uncertainty over the Monte Carlo draws of every sample (JCGM 101:2008); the 95 % intervals of\n"
+        "all the statistics are in --json/--csv. Each sample is drawn independently: effects common to the whole lot\n"
+        "(one calibration) are understated in the means. This is how far the statistics of these samples could move\n"
+        "through the measurement, not the lot's sampling uncertainty (how far another delivery may lie)."
+    )

@@ -10,6 +10,7 @@ import numpy as np
 from ..physics.blackbody import radiant_exitance, spectral_radiance
 from ..physics.constants import KM_lm_per_W
 from ..spectra.resampling import GRID_NM
+from ..spectra.row_products import row_dot
 from ..spectra.tables import luminous_efficiency
 from .tristimulus import ratio_or_nan
 
@@ -29,7 +30,7 @@ def luminous_quantity(values):
 
     The unit follows the spectrum's (:data:`LUMINOUS_UNITS`); Km = 683 lm/W.
     """
-    return KM_lm_per_W * (np.asarray(values, dtype=float) @ luminous_efficiency())
+    return KM_lm_per_W * row_dot(values, luminous_efficiency())
 
 
 def luminous_efficacy_of_radiation(values):

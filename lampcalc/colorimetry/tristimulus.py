@@ -8,6 +8,7 @@ trapezoid rule. Chromaticities have their two components on the last axis.
 
 import numpy as np
 
+from ..spectra.row_products import row_dot
 from ..spectra.tables import colour_matching_functions
 
 
@@ -25,7 +26,7 @@ def tristimulus(values, observer="1931_2deg"):
     For absolute spectra, Km·Y is the luminous quantity (CIE 015:2018, eq. 7.1);
     :func:`relative_XYZ` normalises to Y = 100.
     """
-    return np.asarray(values, dtype=float) @ colour_matching_functions(observer)
+    return row_dot(values, colour_matching_functions(observer))
 
 
 def relative_XYZ(values, observer="1931_2deg"):

@@ -66,6 +66,7 @@ def text_rows(text, where):
         fast=fast,
         comments=comments,
         broken=broken,
+        delimiter=delimiter,
     )
 
 

@@ -33,7 +33,8 @@ def cell(value):
     if isinstance(value, list):
         return ";".join(cell(v) for v in value)
     if isinstance(value, float):
-        return repr(value)
+        # float's own repr (shortest round trip), also for NumPy floats, whose repr depends on print options
+        return float.__repr__(value)
     return str(value)
 
 

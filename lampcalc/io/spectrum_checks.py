@@ -76,19 +76,40 @@ def check_values(values, wl_nm, names, lamp_places, value_place, where):
     flags = []
     for k in range(values.shape[0]):
         col = values[k]
-        peak = float(col.max())
-        if peak <= 0:
-            raise where("the spectrum is zero (or negative) everywhere", lamp_places[k], names[k])
         low = int(col.argmin())
-        if col[low] < -NEGATIVE_NOISE_LIMIT * peak:
-            raise where(
-                f"value {col[low]:g} at {wl_nm[low]:g} nm is negative, {-100 * col[low] / peak:.3g} % of the "
-                f"peak; only noise below {100 * NEGATIVE_NOISE_LIMIT:g} % of the peak is clipped to zero",
-                value_place(k, low),
-                names[k],
-            )
+        problem = value_problem(k, float(col.max()), low, col[low], wl_nm, names, lamp_places, value_place, where)
+        if problem is not None:
+            raise problem
         flags.append(("negative_noise_clipped",) if col[low] < 0 else ())
     return np.clip(values, 0.0, None), flags
+
+
+def value_problem(k, peak, low, low_value, wl_nm, names, lamp_places, value_place, where):
+    """The error for lamp ``k`` whose maximum is ``peak`` and minimum ``low_value`` (at index ``low``), or None."""
+    if peak <= 0:
+        return where("the spectrum is zero (or negative) everywhere", lamp_places[k], names[k])
+    if low_value < -NEGATIVE_NOISE_LIMIT * peak:
+        return where(
+            f"value {low_value:g} at {wl_nm[low]:g} nm is negative, {-100 * low_value / peak:.3g} % of the "
+            f"peak; only noise below {100 * NEGATIVE_NOISE_LIMIT:g} % of the peak is clipped to zero",
+            value_place(k, low),
+            names[k],
+        )
+    return None
+
+
+def check_names(names, lamp_places, where):
+    """Refuse a lamp name used twice in one file."""
+    seen = {}
+    for name, place in zip(names, lamp_places):
+        if name in seen:
+            raise where(f"lamp name {show(name)} is used twice (also {seen[name]})", place)
+        seen[name] = place
+
+
+def lamp_sources(where, lamp_places, units):
+    """Each lamp's ``source``: the path as given, its place in the file and the unit it was given in."""
+    return tuple(f"{where.path}, {p}" + (f" (in {u})" if u else "") for p, u in zip(lamp_places, units))
 
 
 def build_batch(wl, values, names, quantity, *, where, lamp_places, value_place, watts=None, angles=None, units=None):
@@ -117,18 +138,14 @@ def build_batch(wl, values, names, quantity, *, where, lamp_places, value_place,
         k, i = (int(n) for n in np.argwhere(bad)[0])
         raise where("is beyond the range of a float once scaled to SI units", value_place(k, i), names[k])
     values, flags = check_values(values, wl, names, lamp_places, value_place, where)
-    seen = {}
-    for name, place in zip(names, lamp_places):
-        if name in seen:
-            raise where(f"lamp name {show(name)} is used twice (also {seen[name]})", place)
-        seen[name] = place
+    check_names(names, lamp_places, where)
     units = units or [None] * len(names)
     return SpectralBatch(
         wavelength_nm=wl,
         values=values,
         names=names,
         quantity=quantity,
-        sources=tuple(f"{where.path}, {p}" + (f" (in {u})" if u else "") for p, u in zip(lamp_places, units)),
+        sources=lamp_sources(where, lamp_places, units),
         electrical_W=watts,
         flags=flags,
         angle_deg=angles,

@@ -43,6 +43,11 @@ def read_spectra(path, *, wavelength_unit=None, quantity=None):
     InputError
         One line naming the file, the place in it and the problem.
     """
+    with open_spectra(path, wavelength_unit=wavelength_unit, quantity=quantity) as spectra:
+        return spectra.whole()
+
+
+def _read_whole(path, *, wavelength_unit=None, quantity=None):
     where = Where(path)
     suffix = Path(str(path)).suffix.lower()
     if suffix in UNREAD_SPREADSHEETS:
@@ -69,6 +74,53 @@ def read_spectra(path, *, wavelength_unit=None, quantity=None):
     if suffix in JSON_SUFFIXES:
         return read_spectra_json(text, path, quantity=quantity)
     return read_spectra_text(text, path, wavelength_unit=wavelength_unit, quantity=quantity)
+
+
+class WholeFile:
+    """The spectra of a file read at once, handed out in chunks as a :class:`~lampcalc.io.large_tables.LargeText`."""
+
+    def __init__(self, batch):
+        self.batch = batch
+        self.n_lamps = batch.n_lamps
+
+    def __enter__(self):
+        return self
+
+    def __exit__(self, *exc):
+        return False
+
+    def close(self):
+        """Nothing to remove: the spectra are in memory."""
+
+    def whole(self):
+        """Every lamp in one batch."""
+        return self.batch
+
+    def chunks(self, n_lamps):
+        """The batch in pieces of at most ``n_lamps`` lamps, in order."""
+        if self.n_lamps <= n_lamps:
+            yield self.batch
+            return
+        for a in range(0, self.n_lamps, n_lamps):
+            yield self.batch[a : a + n_lamps]
+
+
+def open_spectra(path, *, wavelength_unit=None, quantity=None):
+    """A file's spectra, read and checked, to be handed out in chunks (``with`` block, ``.chunks(n)``).
+
+    A large plain text table (:mod:`~lampcalc.io.large_tables`) keeps its values in a
+    temporary file until closed; every other file is read at once (:class:`WholeFile`).
+    Options and errors as :func:`read_spectra`: a file is refused whole, before any lamp
+    is handed out.
+    """
+    suffix = Path(str(path)).suffix.lower()
+    if suffix not in (*UNREAD_SPREADSHEETS, *XLSX_SUFFIXES, *SPDX_SUFFIXES, *JSON_SUFFIXES):
+        from .large_tables import open_large_text
+
+        large = open_large_text(path, wavelength_unit=wavelength_unit, quantity=quantity)
+        if large is not None:
+            return large
+    return WholeFile(_read_whole(path, wavelength_unit=wavelength_unit, quantity=quantity))
 
 
 def spectra_to_csv(batch):

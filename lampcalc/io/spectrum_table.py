@@ -14,6 +14,7 @@ The table ends at the first row that does not continue it; text after it (a foot
 ignored, numbers after it are refused.
 """
 
+from collections.abc import Sequence
 from dataclasses import dataclass, field
 
 import numpy as np
@@ -42,6 +43,7 @@ class Rows:
     fast: list = None
     comments: list = field(default_factory=list)  # (number, text) of comment lines
     broken: dict = field(default_factory=dict)  # row index -> why its cells could not be split
+    delimiter: str = None  # of a text table (None: runs of blanks)
 
     def is_number(self, cell):
         if isinstance(cell, float):
@@ -172,6 +174,66 @@ def _quantities(units, meta_quantity, override, places, where):
     return tuple(quantities), np.array(scales)
 
 
+class Places(Sequence):
+    """Where each lamp stands (``"column 3"``), made when asked: a million lamps need no million strings."""
+
+    def __init__(self, place, n):
+        self.place, self.n = place, n
+
+    def __len__(self):
+        return self.n
+
+    def __getitem__(self, k):
+        if isinstance(k, slice):
+            return [self.place(i) for i in range(*k.indices(self.n))]
+        if not -self.n <= k < self.n:
+            raise IndexError(k)
+        return self.place(k % self.n)
+
+
+@dataclass
+class TableFrame:
+    """Everything of a table but its values: lamps, their units and places, wavelengths in nm.
+
+    What :func:`table_frame` reads; :meth:`batch` adds the values. A reader that parses the
+    numbers itself (:mod:`~lampcalc.io.large_tables`) uses the frame for the same checks
+    and messages.
+    """
+
+    wavelength_nm: np.ndarray
+    names: tuple
+    quantities: tuple
+    scales: np.ndarray  # per lamp: file values times scale are in the units of its quantity
+    units: list  # per lamp, the unit its values were given in (None when relative)
+    lamp_places: Sequence
+    value_place: callable  # (k, i) -> place of lamp k's value at wavelength i
+    watts: list
+    angles: np.ndarray
+
+    def batch(self, values, where):
+        """The batch of these lamps from ``values`` (n_lamps, n_wavelengths) as in the file."""
+        return build_batch(
+            self.wavelength_nm, values * self.scales[:, None], self.names, self.quantities, where=where,
+            lamp_places=self.lamp_places, value_place=self.value_place, watts=self.watts, angles=self.angles,
+            units=self.units,
+        )
+
+
+@dataclass
+class ParsedNumbers:
+    """The numbers of a table that a fast parser read: rows ``start`` to ``end`` of the :class:`Rows`.
+
+    ``data`` is what :func:`_numbers` would return (None when the numbers stay on disk);
+    ``labels`` the first cells of the lamp rows (layout "rows"); ``wavelengths`` the
+    wavelength cells as numbers.
+    """
+
+    end: int
+    data: np.ndarray = None
+    labels: list = None
+    wavelengths: np.ndarray = None
+
+
 def read_table(rows, where, stem, *, wavelength_unit=None, quantity=None):
     """The spectra of one text file or sheet (see the module docstring) as a :class:`SpectralBatch`.
 
@@ -188,6 +250,21 @@ def read_table(rows, where, stem, *, wavelength_unit=None, quantity=None):
     ------
     InputError
     """
+    frame, values = table_frame(rows, where, stem, wavelength_unit=wavelength_unit, quantity=quantity)
+    return frame.batch(values, where)
+
+
+def table_frame(rows, where, stem, *, wavelength_unit=None, quantity=None, parsed=None):
+    """The :class:`TableFrame` of a table and its values as in the file, shape (n_lamps, n_wavelengths).
+
+    ``parsed``: the numbers as a fast parser read them (:class:`ParsedNumbers`); the values
+    returned are then None when ``parsed.data`` is None. The checks and their order are the
+    careful reader's, so that every message is the same.
+
+    Raises
+    ------
+    InputError
+    """
     start, layout = find_start(rows)
     if start is None:
         raise where(
@@ -195,7 +272,7 @@ def read_table(rows, where, stem, *, wavelength_unit=None, quantity=None):
             "or a row of wavelengths and a row per lamp)"
         )
     width = len(rows.cells[start])
-    end = _extent(rows, start, width, layout, where)
+    end = parsed.end if parsed else _extent(rows, start, width, layout, where)
     header_row = unit_row = None
     if layout == "columns":
         above = [r for r in (start - 1, start - 2) if r >= 0 and len(rows.cells[r]) == width]
@@ -206,10 +283,14 @@ def read_table(rows, where, stem, *, wavelength_unit=None, quantity=None):
         if end - start < 2:
             raise where("the table has fewer than two rows", rows.row_place(start))
         names_row = rows.cells[header_row] if header_row is not None else None
-        data = _numbers(rows, range(start, end), 0, where, lambda r, c: names_row[c] if names_row and c else None)
-        wl, values = data[:, 0], data[:, 1:].T
+        if parsed:
+            data = parsed.data
+            wl, values = parsed.wavelengths, None if data is None else data[:, 1:].T
+        else:
+            data = _numbers(rows, range(start, end), 0, where, lambda r, c: names_row[c] if names_row and c else None)
+            wl, values = data[:, 0], data[:, 1:].T
         wl_places = [rows.cell_place(r, 0) for r in range(start, end)]
-        lamp_places = [rows.column_place(start, c) for c in range(1, width)]
+        lamp_places = Places(lambda k: rows.column_place(start, k + 1), width - 1)
         value_place = lambda k, i: rows.cell_place(start + i, k + 1)  # noqa: E731
         label_cells = rows.cells[header_row] if header_row is not None else [""] * width
         unit_cells = rows.cells[unit_row] if unit_row is not None else None
@@ -217,14 +298,19 @@ def read_table(rows, where, stem, *, wavelength_unit=None, quantity=None):
     else:
         if end - start < 2:
             raise where("no lamp rows under the row of wavelengths", rows.row_place(start))
-        data = _numbers(rows, range(start, end), 1, where, lambda r, c: rows.cells[r][0] if r > start else None)
-        wl, values = data[0], data[1:]
+        if parsed:
+            data = parsed.data
+            wl, values = parsed.wavelengths, None if data is None else data[1:]
+        else:
+            data = _numbers(rows, range(start, end), 1, where, lambda r, c: rows.cells[r][0] if r > start else None)
+            wl, values = data[0], data[1:]
         wl_places = [rows.cell_place(start, c) for c in range(1, width)]
-        lamp_places = [rows.row_place(r) for r in range(start + 1, end)]
+        lamp_places = Places(lambda k: rows.row_place(start + 1 + k), end - start - 1)
         value_place = lambda k, i: rows.cell_place(start + 1 + k, i + 1)  # noqa: E731
-        label_cells = [rows.cells[start][0]] + [rows.cells[r][0] for r in range(start + 1, end)]
+        labels = parsed.labels if parsed else [rows.cells[r][0] for r in range(start + 1, end)]
+        label_cells = [rows.cells[start][0], *labels]
         unit_cells, first_data_row = None, start
-    n_lamps = values.shape[0]
+    n_lamps = len(lamp_places)
 
     names, units, angles = [], [], []
     for k in range(n_lamps):
@@ -260,8 +346,6 @@ def read_table(rows, where, stem, *, wavelength_unit=None, quantity=None):
             raise where(f"the lamp's name says {angles[k]:g} deg, the file's angle_deg line {file_angles[k]:g}",
                         lamp_places[k], names[k])
         angles = np.where(np.isfinite(angles), angles, file_angles)
-    return build_batch(
-        wl, values * scales[:, None], tuple(names), quantities, where=where, lamp_places=lamp_places,
-        value_place=value_place, watts=watts, angles=angles,
-        units=[u if q != "relative" else None for u, q in zip(units, quantities)],
-    )
+    units = [u if q != "relative" else None for u, q in zip(units, quantities)]
+    frame = TableFrame(wl, tuple(names), quantities, scales, units, lamp_places, value_place, watts, angles)
+    return frame, values

@@ -24,6 +24,8 @@ _BOMS = (
     (b"\xfe\xff", "utf-16-be"),
 )
 _SAMPLE = 8192
+#: Control characters other than tab, line feed, form feed and carriage return: many mean a binary file.
+_CONTROL = re.compile(r"[\x00-\x08\x0b\x0e-\x1f]")
 
 
 def _utf16_without_bom(raw):
@@ -67,7 +69,7 @@ def decode_text(raw, where):
         if encoding is not None:
             raise where(f"is not valid {encoding.upper()} text (byte {err.start})") from None
         text = raw.decode("latin-1")
-    if "\x00" in text[:_SAMPLE] or sum(ch < " " and ch not in "\t\r\n\f" for ch in text[:_SAMPLE]) > 8:
+    if "\x00" in text[:_SAMPLE] or len(_CONTROL.findall(text, 0, _SAMPLE)) > 8:
         raise where("this is a binary file, not a text table of spectra")
     if not text.strip():
         raise where("the file is empty")

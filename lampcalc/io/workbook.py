@@ -12,6 +12,8 @@ from .atomic import atomic_path
 
 #: Excel's longest text in a cell.
 MAX_CELL_CHARACTERS = 32767
+#: Excel's rows in a sheet (the header is one of them).
+MAX_ROWS = 1_048_576
 
 
 def _cell(sheet, value, bold=False):
@@ -37,6 +39,45 @@ def _cell(sheet, value, bold=False):
     return cell
 
 
+class WorkbookWriter:
+    """A workbook written a sheet at a time, each sheet a chunk of rows at a time (openpyxl's write-only mode).
+
+    Rows go to the sheet's temporary file as they are added, so a workbook of a million
+    rows is written in flat memory; :meth:`save` writes the file, through a temporary file.
+    """
+
+    def __init__(self):
+        import openpyxl
+
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")  # openpyxl's notes are not the user's business
+            self.book = openpyxl.Workbook(write_only=True)
+        self.sheet = None
+        self.rows = 0
+
+    def add_sheet(self, title, header):
+        """Start a sheet with a bold header row that stays in view."""
+        self.sheet = self.book.create_sheet(title[:31])
+        self.sheet.freeze_panes = "A2"
+        self.sheet.append([_cell(self.sheet, h, bold=True) for h in header])
+        self.rows = 1
+
+    def add_rows(self, rows):
+        """Append rows to the current sheet; values are numbers, text, booleans or None."""
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")
+            for row in rows:
+                self.sheet.append([_cell(self.sheet, v) for v in row])
+                self.rows += 1
+
+    def save(self, path):
+        """Write the workbook to ``path`` (through a temporary file)."""
+        with warnings.catch_warnings():
+            warnings.simplefilter("ignore")
+            with atomic_path(path) as tmp:
+                self.book.save(tmp)
+
+
 def write_workbook(path, sheets):
     """Write ``sheets`` to ``path`` as one workbook, through a temporary file.
 
@@ -46,16 +87,8 @@ def write_workbook(path, sheets):
     sheets : sequence of (str, sequence of str, iterable of sequence)
         ``(title, header, rows)`` per sheet; values are numbers, text, booleans or None.
     """
-    import openpyxl
-
-    with warnings.catch_warnings():
-        warnings.simplefilter("ignore")  # openpyxl's notes are not the user's business
-        book = openpyxl.Workbook(write_only=True)
-        for title, header, rows in sheets:
-            sheet = book.create_sheet(title[:31])
-            sheet.freeze_panes = "A2"
-            sheet.append([_cell(sheet, h, bold=True) for h in header])
-            for row in rows:
-                sheet.append([_cell(sheet, v) for v in row])
-        with atomic_path(path) as tmp:
-            book.save(tmp)
+    book = WorkbookWriter()
+    for title, header, rows in sheets:
+        book.add_sheet(title, header)
+        book.add_rows(rows)
+    book.save(path)

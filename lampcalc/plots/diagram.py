@@ -4,7 +4,8 @@ Drawn: the spectrum locus, the Planckian locus with isotemperature lines, the CI
 locus, the ANSI C78.377-2017 quadrangles, colour-consistency ellipses around a nominal
 centre and the lamps as labelled points. Each element carries a ``gid``:
 ``spectrum_locus``, ``planckian_locus``, ``daylight_locus``, ``isotherm:<T>``,
-``quadrangle:<nominal>``, ``ellipse:<n>``, ``lamp:<name>``, ``label:<name>``.
+``quadrangle:<nominal>``, ``ellipse:<n>``, ``lamp:<name>``, ``label:<name>``, ``region:<name>``
+(a lamp's 95 % region over Monte Carlo draws, :mod:`lampcalc.rating.coverage_region`).
 
 A :class:`ChromaticityDiagram` draws the fixed parts once and is then aimed at lamps as
 often as needed (the report draws one diagram per page this way): :meth:`~ChromaticityDiagram.show`
@@ -16,6 +17,7 @@ quadrangle whole.
 """
 
 import numpy as np
+from matplotlib.colors import to_rgb
 
 from ..colorimetry.daylight import daylight_locus_xy
 from ..colorimetry.locus import cct_duv_to_uv, isotemperature_lines
@@ -84,11 +86,11 @@ def step_ring_xy(nominal_cct_K, n_steps, ellipse_set=None, n_points=181):
 
 
 def window_around(xy, nominal_cct_K, space="xy", steps=7, ellipse_set=None):
-    """A window holding a lamp at ``xy``, the ANSI quadrangle of ``nominal_cct_K`` whole (a flexible CCT has none)
-    and its ``steps``-step contour."""
+    """A window holding a lamp at ``xy`` (or the points, shape (n, 2), of it and its region), the ANSI quadrangle
+    of ``nominal_cct_K`` whole (a flexible CCT has none) and its ``steps``-step contour."""
     to_space = SPACES[space][0]
     cat = category(nominal_cct_K)
-    parts = [step_ring_xy(nominal_cct_K, steps, ellipse_set, 61), np.reshape(xy, (1, 2))]
+    parts = [step_ring_xy(nominal_cct_K, steps, ellipse_set, 61), np.reshape(xy, (-1, 2))]
     if cat.corners_xy is not None:
         parts.append(cat.corners_xy)
     return _padded(to_space(np.vstack(parts)), pad=0.12)
@@ -171,7 +173,7 @@ class ChromaticityDiagram:
             ax.legend(loc="upper left" if zoom else "lower right", handlelength=2.0)
 
     def show(self, lamps=(), *, labels=None, nominal_cct_K=None, steps=(1, 2, 3, 4, 5, 6, 7), window=None,
-             title=None, label_colour=LAMP, ellipse_set=None):
+             title=None, label_colour=LAMP, ellipse_set=None, regions=None):
         """Mark and label ``lamps``, draw ellipses, set the window; replaces what the last call drew.
 
         Parameters
@@ -188,6 +190,10 @@ class ChromaticityDiagram:
             white region (zoom) or the whole diagram, widened to hold every lamp.
         title : str, optional
             Default: the diagram's space; "" for none.
+        regions : sequence of array_like, optional
+            Each lamp's 95 % region, CIE 1931 (x, y) vertices of shape (k, 2)
+            (:func:`~lampcalc.rating.coverage_region.coverage_region`), drawn under its point: a
+            polygon, or a segment or point when the draws are degenerate; the default window holds it.
         """
         self.clear()
         ax, to_space = self.ax, self.to_space
@@ -200,12 +206,21 @@ class ChromaticityDiagram:
                 self._transient += ax.plot(*ring.T, color=ACCENT, lw=0.5 if n != 6 else 0.9, alpha=0.85, gid=f"ellipse:{n}")
             self._transient += ax.plot(*to_space(centre), marker="+", color=ACCENT, ms=5, gid="ellipse_centre")
         points = np.array([to_space(np.asarray(xy, dtype=float)) for _, xy in lamps]).reshape(-1, 2)
+        outlines = [to_space(np.asarray(r, dtype=float).reshape(-1, 2)) for r in regions or ()]
+        for (name, _), outline in zip(lamps, outlines):
+            gid = f"region:{plain_text(name)}"
+            if outline.shape[0] >= 3:
+                self._transient += ax.fill(*outline.T, facecolor=(*to_rgb(LAMP), 0.25), edgecolor=LAMP, lw=0.7,
+                                           zorder=2, gid=gid)
+            elif outline.shape[0]:
+                self._transient += ax.plot(*outline.T, color=LAMP, lw=0.9, zorder=2, gid=gid)
         for (name, _), p in zip(lamps, points):
             self._transient += ax.plot(p[0], p[1], marker="D", ms=3.6, mfc=LAMP, mec="white", mew=0.5, ls="none",
                                        gid=f"lamp:{plain_text(name)}")
         if window is None:
             (x0, x1), (y0, y1) = white_region(self.space) if self.zoom else FULL_LIMITS[self.space]
-            finite = points[np.all(np.isfinite(points), axis=1)]
+            seen = np.vstack([points, *outlines])
+            finite = seen[np.all(np.isfinite(seen), axis=1)]
             if finite.size:
                 (fx0, fx1), (fy0, fy1) = _padded(finite, pad=0.15)
                 (x0, x1), (y0, y1) = (min(x0, fx0), max(x1, fx1)), (min(y0, fy0), max(y1, fy1))

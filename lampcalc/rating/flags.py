@@ -56,6 +56,15 @@ FLAG_MEANINGS = {
         "the line itself may be narrower than fwhm_nm"
     ),
     "uncertainty_incomplete": "some Monte Carlo draws gave no value for a rating (e.g. no CCT): its uncertainty is null",
+    "uncertainty_crosses_validity": (
+        "in part of the Monte Carlo draws a validity limit is crossed (e.g. DC > 5.4e-3, |Duv| > 0.05) that the "
+        "spectrum as measured does not cross, or the reverse: the intervals of the ratings it concerns mix valid and "
+        "doubtful values and are in parentheses"
+    ),
+    "uncertainty_category_varies": (
+        "the lamp's ANSI C78.377 category (or its bin in the set given) differs between Monte Carlo draws: "
+        "the measurement does not settle which category the lamp is in"
+    ),
     # Lots, angles and comparisons (lampcalc.verdicts): flags of a whole lot or pair.
     "lot_too_small_for_sd": "fewer than 2 samples: no standard deviation and no pairwise Δu′v′",
     "lot_too_small_for_ellipse": "fewer than 3 samples: no covariance ellipse",
@@ -108,3 +117,33 @@ def explain(flag):
 def doubtful_keys(flags):
     """The set of output keys that any of ``flags`` makes doubtful."""
     return {key for flag in flags for key in DOUBTFUL_KEYS.get(flag, ())}
+
+
+#: Flags whose presence may change from one Monte Carlo draw to the next: the validity limits and nulls.
+VALIDITY_FLAGS = tuple(dict.fromkeys([*DOUBTFUL_KEYS, *NULLED_KEYS]))
+
+
+def flags_in_draws(entries):
+    """(flag, share of the draws in %) of ``uncertainty_flags_in_draws`` entries ("cri_outside_validity: 12.5 % of draws")."""
+    return [(flag, float(rest.split(" %")[0])) for flag, _, rest in (entry.partition(": ") for entry in entries or ())]
+
+
+def draw_flag_lines(entries):
+    """Each flag raised in part of the Monte Carlo draws in words, with its share: what the terminal and report print."""
+    return [f"in {percent:g} % of the draws: {explain(flag)}" for flag, percent in flags_in_draws(entries)]
+
+
+def doubtful_interval_keys(flags, draw_flags=()):
+    """Output keys whose uncertainty and interval are in doubt.
+
+    Those the lamp's ``flags`` make doubtful, and those that a validity flag raised in only part of
+    the Monte Carlo draws (``draw_flags``, the ``uncertainty_flags_in_draws`` entries) makes
+    doubtful or null.
+
+    Examples
+    --------
+    >>> sorted(doubtful_interval_keys((), ["cri_outside_validity: 12.5 % of draws"]))
+    ['ra', 'ri']
+    """
+    crossed = [flag for flag, _ in flags_in_draws(draw_flags)]
+    return doubtful_keys(flags) | doubtful_keys(crossed) | {k for f in crossed for k in NULLED_KEYS.get(f, ())}

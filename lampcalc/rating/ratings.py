@@ -4,11 +4,8 @@ Its JSON and CSV forms use the keys of :data:`FIELDS`, documented in
 ``docs/output-fields.md``.
 """
 
-import csv
-import io
-import json
-
-from ..io.serialise import cell, plain
+from ..io.serialise import plain
+from ..io.streamed_tables import csv_of_columns, json_of_columns
 
 #: Output fields in order: key -> description (with unit). Lists are noted as such.
 FIELDS = {
@@ -76,6 +73,11 @@ FIELDS = {
     "melanopic_edi_lx": "melanopic equivalent daylight (D65) illuminance, lx (spectra in W/(m2 nm) only)",
     "flags": "conditions that qualify the numbers (list of strings, see docs/output-fields.md)",
 }
+#: Output fields of some runs only, after those of FIELDS: key -> description.
+RUN_FIELDS = {
+    "uncertainty_flags_in_draws": "with --uncertainty: validity flags that part of the Monte Carlo draws carry and the "
+    "spectrum as measured does not, or the reverse, each with its share of the draws (list of strings)",
+}
 
 
 class Ratings:
@@ -86,7 +88,8 @@ class Ratings:
     DataFrame, ``"cct_K" in ratings`` and iteration go over the keys and ``len`` is the
     number of lamps; :meth:`to_pandas` gives a DataFrame with list fields spread into columns.
     ``extras`` keeps what figures need but files do not: the spectra on the grid
-    (``"batch"``) and the TM-30 bin means (``"ref_ab_bins"``, ``"test_ab_bins"``).
+    (``"batch"``) and the TM-30 bin means (``"ref_ab_bins"``, ``"test_ab_bins"``); empty for
+    ratings rated in a stream that draws nothing (:mod:`lampcalc.rating.streaming`).
     """
 
     def __init__(self, columns, extras=None):
@@ -112,7 +115,8 @@ class Ratings:
 
     def output_keys(self):
         """The keys of the JSON and CSV files, in :data:`FIELDS` order; a key's ``_u`` and ``_interval95`` follow it."""
-        return [k for key in FIELDS for k in (key, f"{key}_u", f"{key}_interval95") if k in self.columns]
+        keys = [k for key in FIELDS for k in (key, f"{key}_u", f"{key}_interval95") if k in self.columns]
+        return keys + [k for k in RUN_FIELDS if k in self.columns]
 
     def to_pandas(self):
         """A pandas DataFrame, one row per lamp; list fields spread into columns (pandas optional)."""
@@ -125,17 +129,14 @@ class Ratings:
         keys = self.output_keys()
         return [{k: plain(self.columns[k][i]) for k in keys} for i in range(len(self))]
 
+    def output_columns(self):
+        """The columns of :meth:`output_keys`, in order: what the JSON and CSV forms hold."""
+        return {k: self.columns[k] for k in self.output_keys()}
+
     def to_json(self):
         """JSON text: a list with one object per lamp."""
-        return json.dumps(self.records(), indent=1, allow_nan=False) + "\n"
+        return json_of_columns(self.output_columns())
 
     def to_csv(self):
         """CSV text: one row per lamp; list fields are joined with ';'."""
-        records = self.records()
-        keys = self.output_keys()
-        out = io.StringIO()
-        writer = csv.writer(out, lineterminator="\n")
-        writer.writerow(keys)
-        for rec in records:
-            writer.writerow([cell(rec[k]) for k in keys])
-        return out.getvalue()
+        return csv_of_columns(self.output_columns())

@@ -47,6 +47,7 @@ import numpy as np
 
 from ..spectra.batch import SpectralBatch
 from ..spectra.resampling import linear
+from .flags import VALIDITY_FLAGS
 from .rate import rate_spectra
 from .ratings import FIELDS, Ratings
 
@@ -160,7 +161,7 @@ def _on_grid(batch, interpolation):
 class _LampDraws:
     """The draws of one lamp's spectrum, as read, in consecutive blocks."""
 
-    def __init__(self, lamp, model):
+    def __init__(self, lamp, model, stream=0):
         self.lamp, self.model = lamp, model
         wl, m = lamp.wavelength_nm, lamp.values[0]
         lo, hi = lamp.measured_range_nm[0]
@@ -168,7 +169,7 @@ class _LampDraws:
         self.floor = np.where(inside, m[inside].max(), 0.0)
         self.slit = slit_convolution(wl, m, model.bandwidth_nm) - m if model.bandwidth_nm else None
         key = int.from_bytes(hashlib.sha256(lamp.names[0].encode("utf-8")).digest()[:8], "little")
-        streams = np.random.SeedSequence([model.seed, key]).spawn(len(_EFFECTS))
+        streams = np.random.SeedSequence([model.seed, key, *([stream] if stream else [])]).spawn(len(_EFFECTS))
         self.rng = {effect: np.random.default_rng(s) for effect, s in zip(_EFFECTS, streams)}
 
     def values(self, k):
@@ -230,16 +231,20 @@ class MonteCarloDraws:
         The resampling named for the rating (None: on_grid's default).
     xy : ndarray, shape (n_lamps, draws, 2)
         Every draw's CIE 1931 x, y (of the observer rated with), for each lamp's coverage region.
+    kept : dict
+        Output key -> every draw's value, shape (n_lamps, draws, ...), for the keys asked to be kept.
     """
 
     model: object
     interpolation: object
     xy: np.ndarray
     coverage: float = COVERAGE
+    kept: dict = None
 
 
 def rate_with_uncertainty(spectra, model, *, observer="1931_2deg", interpolation=None, nominal_cct_K=None,
-                          bin_set=None, ellipse_set=None, on_draws=None, progress=None, chunk_spectra=CHUNK_SPECTRA):
+                          bin_set=None, ellipse_set=None, on_draws=None, progress=None, chunk_spectra=CHUNK_SPECTRA,
+                          keep=(), stream=0):
     """Rate every lamp, and give each numeric rating its measurement uncertainty.
 
     Parameters
@@ -259,6 +264,13 @@ def rate_with_uncertainty(spectra, model, *, observer="1931_2deg", interpolation
         Called with the number of lamps finished each time one is.
     chunk_spectra : int
         Draws rated per batched call.
+    keep : sequence of str
+        Output keys whose every draw is kept in ``extras["uncertainty"].kept`` (what lots and
+        comparisons summarise their own statistics from).
+    stream : int
+        A further key of the random streams: two sets rated with the same model and different
+        streams draw independently even where lamps share a name (a comparison's reference and
+        test). 0, the default, gives the streams of the model's seed alone.
 
     Returns
     -------
@@ -282,11 +294,11 @@ def rate_with_uncertainty(spectra, model, *, observer="1931_2deg", interpolation
     lamps = [b[j] for b in batches for j in range(b.n_lamps)]
     n, draws = len(lamps), model.draws
     nominal = np.full(n, np.nan) if nominal_cct_K is None else np.asarray(nominal_cct_K, dtype=float).reshape(n)
-    summary = _Summary(ratings, draws)
+    summary = _Summary(ratings, draws, keep)
     drawers = {}
     for chunk in _segments(n, draws, chunk_spectra):
         grid = SpectralBatch.concatenate(
-            [drawers.setdefault(lamp, _LampDraws(lamps[lamp], model)).on_grid(stop - start, interpolation)
+            [drawers.setdefault(lamp, _LampDraws(lamps[lamp], model, stream)).on_grid(stop - start, interpolation)
              for lamp, start, stop in chunk]
         )
         centres = np.concatenate([np.full(stop - start, nominal[lamp]) for lamp, start, stop in chunk])
@@ -303,13 +315,13 @@ def rate_with_uncertainty(spectra, model, *, observer="1931_2deg", interpolation
                 del drawers[lamp]
                 if progress is not None:
                     progress(1)
-    return summary.ratings(MonteCarloDraws(model, interpolation, summary.xy))
+    return summary.ratings(MonteCarloDraws(model, interpolation, summary.xy, kept=summary.kept))
 
 
 class _Summary:
     """Each lamp's draws of every propagated key, summarised when the lamp is finished."""
 
-    def __init__(self, ratings, draws):
+    def __init__(self, ratings, draws, keep=()):
         self.nominal = ratings
         self.keys = propagated_keys(ratings)
         self.parts = {}
@@ -318,16 +330,38 @@ class _Summary:
         self.interval = {k: np.full(ratings[k].shape + (2,), np.nan) for k in self.keys}
         self.incomplete = np.zeros(n, dtype=bool)
         self.xy = np.empty((n, draws, 2))
+        self.kept = {k: np.full((n, draws) + np.shape(ratings[k])[1:], np.nan) for k in keep}
         self.filled = np.zeros(n, dtype=int)
+        self.draws = draws
+        self.flag_counts = {}  # lamp -> {validity flag: draws that carry it}
+        self.categories = {}  # lamp -> the (ANSI category, bin) pairs the draws fall in
+        self.in_draws = [()] * n
+        self.varies = np.zeros(n, dtype=bool)
 
     def add(self, lamp, part):
         self.parts.setdefault(lamp, []).append({k: part[k] for k in self.keys})
         k = len(part)
-        self.xy[lamp, self.filled[lamp]: self.filled[lamp] + k] = np.stack([part["x"], part["y"]], axis=-1)
+        rows = slice(self.filled[lamp], self.filled[lamp] + k)
+        self.xy[lamp, rows] = np.stack([part["x"], part["y"]], axis=-1)
+        for key, values in self.kept.items():
+            values[lamp, rows] = np.asarray(part[key], dtype=float)
         self.filled[lamp] += k
+        counts = self.flag_counts.setdefault(lamp, dict.fromkeys(VALIDITY_FLAGS, 0))
+        for flags in part["flags"]:
+            for flag in set(flags).intersection(counts):
+                counts[flag] += 1
+        ansi = np.nan_to_num(np.asarray(part["ansi_nominal_cct_K"], dtype=float), nan=-1.0)
+        bins = part["bin"] if "bin" in part else (None,) * k
+        self.categories.setdefault(lamp, set()).update(zip(ansi.tolist(), bins))
 
     def finish(self, lamp):
         parts = self.parts.pop(lamp)
+        measured = set(self.nominal["flags"][lamp])
+        self.in_draws[lamp] = tuple(
+            f"{flag}: {100.0 * count / self.draws:.4g} % of draws"
+            for flag, count in self.flag_counts.pop(lamp).items() if count != (self.draws if flag in measured else 0)
+        )
+        self.varies[lamp] = len(self.categories.pop(lamp)) > 1
         for key in self.keys:
             draws = np.concatenate([p[key] for p in parts])
             known = np.isfinite(self.nominal[key][lamp])
@@ -344,7 +378,10 @@ class _Summary:
         for key in self.keys:
             columns[f"{key}_u"] = self.u[key]
             columns[f"{key}_interval95"] = self.interval[key]
+        columns["uncertainty_flags_in_draws"] = tuple(self.in_draws)
         columns["flags"] = tuple(
-            f + ("uncertainty_incomplete",) if bad else f for f, bad in zip(columns["flags"], self.incomplete)
+            f + ("uncertainty_incomplete",) * bool(bad) + ("uncertainty_crosses_validity",) * bool(crossed)
+            + ("uncertainty_category_varies",) * bool(varies)
+            for f, bad, crossed, varies in zip(columns["flags"], self.incomplete, self.in_draws, self.varies)
         )
         return Ratings(columns, {**self.nominal.extras, "uncertainty": extra})

@@ -12,6 +12,7 @@ list field                          columns
 ``hue_shift_hue_bins_rad``          ``hue_shift_h01_rad`` … ``hue_shift_h16_rad``
 ``ler_range_nm``                    ``ler_range_start_nm``, ``ler_range_end_nm``
 ``flags``                           ``flags``: the flags joined with ``"; "``
+``uncertainty_flags_in_draws``      the same, joined with ``"; "``
 ==================================  ==============================================
 
 With ``--uncertainty`` each key's ``_u`` columns follow its columns and each ``_interval95``
@@ -19,6 +20,10 @@ becomes two, ``_interval95_low`` and ``_interval95_high`` (``cct_K_u``, ``r9_int
 """
 
 from ..io.serialise import plain
+from ..io.workbook import MAX_CELL_CHARACTERS
+
+# Names kept per flag: beyond a cell's length (with room for characters a workbook cannot hold).
+_KEEP_CHARACTERS = 4 * MAX_CELL_CHARACTERS
 
 #: List field -> the names of the columns it is spread into.
 SPREAD = {
@@ -28,6 +33,9 @@ SPREAD = {
     "hue_shift_hue_bins_rad": tuple(f"hue_shift_h{k:02d}_rad" for k in range(1, 17)),
     "ler_range_nm": ("ler_range_start_nm", "ler_range_end_nm"),
 }
+
+#: Lists of words, joined into one cell.
+JOINED = ("flags", "uncertainty_flags_in_draws")
 
 
 def wide_columns(ratings):
@@ -44,7 +52,7 @@ def wide_columns(ratings):
     for key in ratings.keys():
         column = [plain(v) for v in ratings.columns[key]]
         base, suffix = _companion(key, ratings)
-        if key == "flags":
+        if key in JOINED:
             out[key] = ["; ".join(f) for f in column]
         elif base in SPREAD:
             for j, name in enumerate(SPREAD[base]):
@@ -79,11 +87,45 @@ def to_pandas(ratings):
     ImportError
         When pandas is not installed, naming the extra that installs it.
     """
-    try:
-        import pandas
-    except ImportError:
-        raise ImportError("Ratings.to_pandas needs pandas: pip install 'lampcalc[pandas]'") from None
-    return pandas.DataFrame(wide_columns(ratings))
+    from .optional import optional_import
+
+    return optional_import("pandas", "pandas", "Ratings.to_pandas").DataFrame(wide_columns(ratings))
+
+
+class FlagLamps:
+    """Every flag raised in a run, in the order first met, with the lamps it qualifies.
+
+    The list of lamps is what the workbook's ``flags`` sheet shows in one cell; a cell holds
+    :data:`~lampcalc.io.workbook.MAX_CELL_CHARACTERS` at most, so names stop being kept once
+    they fill several cells' worth (the cell is cut there the same way).
+    """
+
+    def __init__(self):
+        self.lamps = {}  # flag -> [names kept, length of their text]
+        self.counts = {}  # flag -> lamps it qualifies
+
+    def add(self, names, flags):
+        for name, lamp_flags in zip(names, flags):
+            for flag in lamp_flags:
+                self.counts[flag] = self.counts.get(flag, 0) + 1
+                kept = self.lamps.setdefault(flag, [[], -2])
+                if kept[1] <= _KEEP_CHARACTERS:
+                    kept[0].append(name)
+                    kept[1] += len(name) + 2
+
+    def rows(self):
+        """``[flag, meaning, lamps]`` per flag, then the note on empty cells."""
+        from .flags import explain
+
+        rows = [[flag, explain(flag), ", ".join(names)] for flag, (names, _) in self.lamps.items()]
+        rows.append(["(empty cell)", "not computable for this lamp; a flag above says why", ""])
+        return rows
+
+
+def ratings_rows(ratings):
+    """The header and rows of the ``ratings`` sheet: the wide table, one row per lamp."""
+    table = wide_columns(ratings)
+    return list(table), [list(row) for row in zip(*table.values())]
 
 
 def ratings_sheets(ratings):
@@ -92,17 +134,9 @@ def ratings_sheets(ratings):
     ``ratings``: the wide table, one row per lamp. ``flags``: every flag raised, what it
     means and the lamps it qualifies, so that no flagged number reaches a reader unexplained.
     """
-    from .flags import explain
-
-    table = wide_columns(ratings)
-    names = table["name"]
-    raised = {}
-    for name, flags in zip(names, ratings["flags"]):
-        for flag in flags:
-            raised.setdefault(flag, []).append(name)
-    flag_rows = [[flag, explain(flag), ", ".join(lamps)] for flag, lamps in raised.items()]
-    flag_rows.append(["(empty cell)", "not computable for this lamp; a flag above says why", ""])
+    flags = FlagLamps()
+    flags.add(ratings["name"], ratings["flags"])
     return [
-        ("ratings", list(table), [list(row) for row in zip(*table.values())]),
-        ("flags", ["flag", "meaning", "lamps"], flag_rows),
+        ("ratings", *ratings_rows(ratings)),
+        ("flags", ["flag", "meaning", "lamps"], flags.rows()),
     ]

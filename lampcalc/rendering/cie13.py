@@ -28,6 +28,7 @@ import numpy as np
 
 from ..colorimetry.tristimulus import XYZ_to_xy, xy_to_uv
 from ..spectra.resampling import GRID_NM, sprague
+from ..spectra.row_products import row_dot
 from ..spectra.tables import colour_matching_functions, read_table
 from .reference import reference_cie13
 
@@ -62,9 +63,9 @@ def _sample_colorimetry(source, wavelength_range_nm):
     """Tristimulus of the source (Y = 100), its (u, v), and the samples' Y and (u, v)."""
     band, cmf, weights = _sample_weights(tuple(float(w) for w in wavelength_range_nm))
     source = source[:, band]
-    XYZ = source @ cmf
+    XYZ = row_dot(source, cmf)
     k = 100.0 / XYZ[:, 1]
-    samples = (source @ weights).reshape(source.shape[0], -1, 3) * k[:, None, None]
+    samples = row_dot(source, weights).reshape(source.shape[0], -1, 3) * k[:, None, None]
     uv = xy_to_uv(XYZ_to_xy(XYZ))
     return uv, samples[..., 1], xy_to_uv(XYZ_to_xy(samples))
 

@@ -27,6 +27,7 @@ import functools
 import numpy as np
 
 from ..spectra.resampling import GRID_NM
+from ..spectra.row_products import row_dot
 from ..spectra.tables import colour_matching_functions, read_table
 from .reference import reference_cie224
 
@@ -76,7 +77,7 @@ def _cam02(samples, white):
     n, F_L, N_bb, N_cb, z = cam.viewing_conditions_dependent_parameters(Y_b, Y_w, L_A)
     # colour-science's matrices, applied with one matrix product each (its RGB_to_rgb step).
     to_hpe = (MATRIX_XYZ_TO_HPE @ cam.CAT_INVERSE_CAT02).T
-    RGB_w = (white @ CAT_CAT02.T)[:, None, :]
+    RGB_w = row_dot(white, CAT_CAT02.T)[:, None, :]
     D = np.ones(Y_w.shape)
     RGB_a = cam.post_adaptation_non_linear_response_compression_forward(
         cam.full_chromatic_adaptation_forward(samples @ CAT_CAT02.T, RGB_w, Y_w, D) @ to_hpe, F_L[..., None]
@@ -98,9 +99,9 @@ def _jab(source):
     """CAM02-UCS J′a′b′ and CIECAM02 hue of the CES under each source, shapes (n, 99, 3), (n, 99)."""
     from colour.models import JMh_CIECAM02_to_CAM02UCS
 
-    white = source @ colour_matching_functions("1964_10deg")[BAND]
+    white = row_dot(source, colour_matching_functions("1964_10deg")[BAND])
     k = 100.0 / white[:, 1]
-    samples = (source @ _sample_weights()).reshape(-1, 99, 3) * k[:, None, None]
+    samples = row_dot(source, _sample_weights()).reshape(-1, 99, 3) * k[:, None, None]
     J, M, h = _cam02(samples, white * k[:, None])
     return JMh_CIECAM02_to_CAM02UCS(np.stack([J, M, h], axis=-1)), h
 

@@ -13,6 +13,7 @@ Spectra are on the 1 nm grid, shape ``(..., 471)``. The action spectra are tabul
 import numpy as np
 
 from ..physics.constants import KM_lm_per_W, KM_SCOTOPIC_lm_per_W
+from ..spectra.row_products import row_dot
 from ..spectra.tables import (
     action_spectra_s026,
     luminous_efficiency,
@@ -37,8 +38,8 @@ def scotopic_photopic_ratio(values):
     """
     values = np.asarray(values, dtype=float)
     with np.errstate(invalid="ignore", divide="ignore"):
-        return (KM_SCOTOPIC_lm_per_W * (values @ scotopic_luminous_efficiency())) / (
-            KM_lm_per_W * (values @ luminous_efficiency())
+        return (KM_SCOTOPIC_lm_per_W * row_dot(values, scotopic_luminous_efficiency())) / (
+            KM_lm_per_W * row_dot(values, luminous_efficiency())
         )
 
 
@@ -46,7 +47,7 @@ def alpha_opic_elr(values):
     """α-opic efficacies of luminous radiation, mW/lm, shape ``(..., 5)`` (order of :data:`ALPHA_OPIC`)."""
     values = np.asarray(values, dtype=float)
     with np.errstate(invalid="ignore", divide="ignore"):
-        return 1000.0 * (values @ action_spectra_s026()) / (KM_lm_per_W * (values @ luminous_efficiency()))[..., None]
+        return 1000.0 * row_dot(values, action_spectra_s026()) / (KM_lm_per_W * row_dot(values, luminous_efficiency()))[..., None]
 
 
 def alpha_opic_der(values):

@@ -19,6 +19,7 @@ from ..colorimetry.daylight import DAYLIGHT_RANGE_K, daylight_spectrum
 from ..physics.blackbody import spectral_radiance
 from ..physics.constants import C2_CIE_mK
 from ..spectra.resampling import GRID_NM
+from ..spectra.row_products import row_dot
 from ..spectra.tables import colour_matching_functions
 
 
@@ -65,7 +66,7 @@ def reference_cie224(cct_K, band=slice(None), daylight_interpolation="linear"):
     day[need_day] = _daylight(cct[need_day], daylight_interpolation, band)
     w = np.clip((cct - 4000.0) / 1000.0, 0.0, 1.0)[:, None]
     with np.errstate(invalid="ignore", divide="ignore"):
-        mixed = (1 - w) * planck / (planck @ ybar)[:, None] + w * day / (day @ ybar)[:, None]
+        mixed = (1 - w) * planck / row_dot(planck, ybar)[:, None] + w * day / row_dot(day, ybar)[:, None]
     ref = np.where((cct < 4000.0)[:, None], planck, np.where((cct > 5000.0)[:, None], day, mixed))
     ref[~available] = np.nan
     return ref

@@ -98,9 +98,9 @@ def _rows(report, letters):
 
 
 class AnglePages:
-    """Page builder of colour over angle (order 210): the verdict, the figures, the table by angle."""
+    """Page builder of colour over angle (order 160): the verdict, the figures, the table by angle."""
 
-    order = 210
+    order = 160
 
     def _layout(self, report):
         if "angles" not in report.cache:

@@ -60,6 +60,18 @@ def _lead(pairs, k):
     return f"Colour shift Δu′v′ {line}."
 
 
+def uncertainty_line(pairs, k):
+    """The colour shift's measurement uncertainty and the decision against the limit, in a sentence (``--uncertainty``)."""
+    low, high = pairs["delta_uv_prime_interval95"][k]
+    text = (f"With measurement uncertainty: Δu′v′ {format_value('delta_uv_prime', pairs['delta_uv_prime'][k])}, "
+            f"u {format_value('delta_uv_prime', pairs['delta_uv_prime_u'][k])}, 95 % interval "
+            f"{format_value('delta_uv_prime', low)} to {format_value('delta_uv_prime', high)}")
+    if "decision" in pairs and pairs["decision"][k] is not None:
+        text += (f"; the limit is met in {100 * pairs['conformance_probability'][k]:.1f} % of the draws; decision: "
+                 f"{pairs['decision'][k]} ({pairs['decision_rule'][k]})")
+    return text + ". The verdict above follows the measured value."
+
+
 def rating_rows(pairs, k):
     """Rows of every rating either lamp of pair ``k`` has: reference, test, difference (doubtful in parentheses)."""
     doubt = doubtful_keys(pairs["reference_flags"][k]) | doubtful_keys(pairs["test_flags"][k])
@@ -79,9 +91,9 @@ def rating_rows(pairs, k):
 
 
 class ComparisonPages:
-    """Page builder of a comparison (order 220): a list of the pairs when there are several, one page per pair."""
+    """Page builder of a comparison (order 170): a list of the pairs when there are several, one page per pair."""
 
-    order = 220
+    order = 170
 
     def _overview_pages(self, report):
         """Row ranges of the list of pairs (none for a single pair)."""
@@ -163,7 +175,10 @@ class ComparisonPages:
             y = sheet.top + heading(page, sheet.left, sheet.top, "Colour shift", sheet.width)
             y += paragraph(page, sheet.left, y, _lead(pairs, k), sheet.width, size=8, weight="bold",
                            color=LAMP if pairs["pass"][k] is False else INK) + 1
-            y += verdict_table([pair_limit(pairs, k)], sheet.width).draw(page, sheet.left, y) + 3
+            y += verdict_table([pair_limit(pairs, k)], sheet.width).draw(page, sheet.left, y) + 1
+            if "delta_uv_prime_u" in pairs:
+                y += paragraph(page, sheet.left, y, uncertainty_line(pairs, k), sheet.width, size=6.6) + 1
+            y += 2
             y += heading(page, sheet.left, y, "Spectra and ratings", sheet.width)
             self._spectra(page, sheet, reference, test, pairs, k, y)
             # numbers wrap rather than being shortened: "1.185 × 10⁻¹⁰" must never print as "1.185 × …"

@@ -15,12 +15,12 @@ A report is an ordered list of *page builders*. Each builder is an object with
 
 The builders are found, not listed: every module of this package whose name ends in
 ``_pages`` or ``_page`` and that defines ``PAGES`` (a builder) takes part: the summary (100),
-a lot (200), colour over angle (210), a comparison (220), the lamps (300), the methods
-(900). The data a builder draws come with the :class:`Report` (``lot=``, ``angles=``,
-``comparison=``); without them it counts no page. To add pages — uncertainty intervals, say —
+a lot (150), colour over angle (160), a comparison (170), the measurement uncertainty (200),
+the lamps (300), the methods (900). The data a builder draws come with the :class:`Report`
+(``lot=``, ``angles=``, ``comparison=``); without them it counts no page. To add pages,
 write ``lampcalc/report/<name>_pages.py`` with ``PAGES = YourBuilder()`` and an ``order``
-between its neighbours (200 puts it after the summary); no other module changes. A caller
-can also pass its own list: ``write_report(..., pages=[...])``.
+between its neighbours; no other module changes. A caller can also pass its own list:
+``write_report(..., pages=[...])``.
 
 A page is drawn in millimetres from the paper's top-left corner (:class:`Page`). The
 :class:`Sheet` keeps one matplotlib figure per page ``key`` and reuses it: axes and fixed

@@ -12,6 +12,11 @@
    and hue shift) as numbers, then the hue-bin graphic and bars on fixed scales.
 5. **Spectrum** against its reference, with the α-opic ratios beside it.
 
+With measurement uncertainty (:mod:`lampcalc.report.uncertainty_pages`) a lamp takes two pages:
+the first adds, after the claims, the claims judged with uncertainty and, after the flags, the
+main ratings with u and 95 % interval, and its diagram shows the lamp's 95 % region; colour
+rendering and the spectrum follow on the second.
+
 The axes are made once and moved to each page's layout; only the lamp's data change.
 """
 
@@ -22,18 +27,20 @@ from ..plots.diagram import ChromaticityDiagram, window_around
 from ..plots.hue import BAR_SCALES, HueBars, HueGraphic
 from ..plots.spectrum import SpectrumPanel, reference_at_equal_luminance
 from ..plots.style import INK, LAMP, MUTED, pin_axis_labels
-from ..rating.flags import doubtful_keys, explain
+from ..rating.flags import doubtful_keys, draw_flag_lines, explain
 from ..rendering.reference import reference_cie224
 from ..spectra.batch import QUANTITY_UNITS
 from ..standards.ansi_bins import ansi_bin_set
 from ..verdicts.wording import INTERPOLATION_WORDS, MISSING, QUALIFIED, format_value, lamp_line, lamp_status, word_checks
 from .markers import quote
 from .tables import HEADING_MM, Column, Table, heading, key_values, key_values_height, line_mm, paragraph
+from .uncertainty_pages import DECISIONS_NOTE, RATINGS_NOTE, decision_table, draws_of, rating_table, regions
 from .verdict_tables import verdict_table
 
 ALPHA_OPIC = ("s_cone", "m_cone", "l_cone", "rhodopic", "melanopic")
 _BIN_KEYS = ("rf_hue_bins", "chroma_shift_hue_bins_percent", "hue_shift_hue_bins_rad")
 SPECTRUM_MIN_MM = 54.0  # heading, plot (at least 33 mm) and caption
+SPECTRUM_MAX_MM = 90.0
 CLAIMS_NOTE = (
     f"Margin: distance from the claim's limit, negative when short of it (quadrangle: from its nearest edge in (u, v)). "
     f"{QUALIFIED} qualified, see Methods."
@@ -178,12 +185,13 @@ class LampPages:
     order = 300
 
     def count(self, report):
-        return len(report.records)
+        return len(report.records) * (1 if draws_of(report) is None else 2)
 
     def draw(self, report, sheet):
         batch = report.ratings.extras["batch"]
         cct = np.array([np.nan if r["cct_K"] is None else r["cct_K"] for r in report.records])
         references = reference_at_equal_luminance(batch.values, reference_cie224(cct))
+        shapes = regions(report)
         axes = None
         for i, record in enumerate(report.records):
             with sheet.page("lamp", record["name"], _subtitle(record)) as page:
@@ -192,21 +200,47 @@ class LampPages:
                 axes.hide()
                 verdict = report.lamp_verdicts[i]
                 y = self._claims(page, sheet, report, record, verdict, sheet.top)
+                if shapes is not None:
+                    y = self._decisions(page, sheet, record, verdict, y)
                 y = self._flags(page, sheet, record, y)
-                # The colour point takes what the rendering tables and the spectrum's least height leave.
                 tables = _rendering_tables(record)
-                rendering_h = HEADING_MM + max(t.height() for t in tables) + 2 if _rendered(record) else 14.0
-                room = sheet.bottom - y - SPECTRUM_MIN_MM - rendering_h
-                point_h = min(62.0 if _white(record) else 84.0, max(46.0, room))
-                y = self._colour_point(page, sheet, axes, record, y, point_h)
-                y = self._rendering(page, sheet, axes, report, i, record, y, tables)
-                self._spectrum(page, sheet, axes, batch, i, record, references[i], y)
+                if shapes is not None:  # rendering and spectrum go on the next page
+                    y = self._uncertainty(page, sheet, record, y)
+                    point_h = min(62.0 if _white(record) else 84.0, max(46.0, sheet.bottom - y))
+                    self._colour_point(page, sheet, axes, record, y, point_h, shapes[i])
+                else:  # the colour point takes what the rendering tables and the spectrum's least height leave
+                    rendering_h = HEADING_MM + max(t.height() for t in tables) + 2 if _rendered(record) else 14.0
+                    room = sheet.bottom - y - SPECTRUM_MIN_MM - rendering_h
+                    point_h = min(62.0 if _white(record) else 84.0, max(46.0, room))
+                    y = self._colour_point(page, sheet, axes, record, y, point_h)
+                    y = self._rendering(page, sheet, axes, report, i, record, y, tables)
+                    self._spectrum(page, sheet, axes, batch, i, record, references[i], y)
+            if shapes is not None:
+                with sheet.page("lamp", f"{record['name']}, continued", _subtitle(record)) as page:
+                    axes.hide()
+                    y = self._rendering(page, sheet, axes, report, i, record, sheet.top, tables)
+                    self._spectrum(page, sheet, axes, batch, i, record, references[i], y)
+
+    def _decisions(self, page, sheet, record, verdict, y):
+        if verdict is None or "decision" not in verdict:
+            return y
+        y += heading(page, sheet.left, y, "Claims with measurement uncertainty", sheet.width)
+        lead = f"Decision: {verdict['decision'] or 'not decided'} ({verdict['checks'][0]['decision_rule']})."
+        y += paragraph(page, sheet.left, y, lead, sheet.width, size=8, weight="bold",
+                       color=INK if verdict["decision"] in ("pass", "conditional pass") else LAMP) + 1
+        y += decision_table(verdict, record, sheet.width).draw(page, sheet.left, y) + 1
+        return y + paragraph(page, sheet.left, y, DECISIONS_NOTE, sheet.width, size=5.8, color=MUTED) + 1.5
+
+    def _uncertainty(self, page, sheet, record, y):
+        y += heading(page, sheet.left, y, "Measurement uncertainty of the main ratings", sheet.width)
+        y += rating_table(record, sheet.width).draw(page, sheet.left, y) + 1
+        return y + paragraph(page, sheet.left, y, RATINGS_NOTE, sheet.width, size=5.8, color=MUTED) + 1.5
 
     def _claims(self, page, sheet, report, record, verdict, y):
         y += heading(page, sheet.left, y, "Claims", sheet.width)
         if verdict is None:
             text = ("No claims were checked: the report was made without a claims file." if report.verdicts is None
-                    else "The claims file makes no claims for this lamp.")
+                    else "No claims of this lamp were checked.")
             if report.verdicts is None and report.lot_verdicts is not None:
                 text = "No claims of this sample alone were checked: the claims on the lot are on the lot's pages."
             return y + paragraph(page, sheet.left, y, text, sheet.width, size=7, color=MUTED) + 2
@@ -226,9 +260,12 @@ class LampPages:
         page.text(sheet.left, y, "Flags", size=6.6, weight="bold")
         for flag in flags:
             y += paragraph(page, sheet.left + 12, y, explain(flag), sheet.width - 12, size=6.6)
+            if flag == "uncertainty_crosses_validity":
+                for line in draw_flag_lines(record.get("uncertainty_flags_in_draws")):
+                    y += paragraph(page, sheet.left + 16, y, "– " + line, sheet.width - 16, size=6.2, color=MUTED)
         return y + 1.5
 
-    def _colour_point(self, page, sheet, axes, record, y, height):
+    def _colour_point(self, page, sheet, axes, record, y, height, region=None):
         y += heading(page, sheet.left, y, "Colour point and category" if _white(record) else "Colour point", sheet.width)
         size = height - HEADING_MM
         list_w = sheet.width - size - 4
@@ -244,16 +281,20 @@ class LampPages:
         xy = (record["x"], record["y"])
         nominal = record.get("sdcm_centre_nominal_cct_K")
         ellipses = _ellipse_set(record)
+        shown = {"labels": [None], "title": "", "regions": None if region is None else [region]}
+        held = xy if region is None or not len(region) else np.vstack([xy, region])
         if _white(record) and nominal is not None and ellipses is not None:
-            diagram.show([(name, xy)], labels=[None], nominal_cct_K=nominal, ellipse_set=ellipses, title="",
-                         window=window_around(xy, nominal, ellipse_set=ellipses))
+            diagram.show([(name, xy)], nominal_cct_K=nominal, ellipse_set=ellipses,
+                         window=window_around(held, nominal, ellipse_set=ellipses), **shown)
             note = f"ANSI C78.377-2017 quadrangles; 1–7 step contours ({ellipses.name}) around the {nominal:g} K centre."
         elif _white(record) and nominal is not None:
-            diagram.show([(name, xy)], labels=[None], title="", window=window_around(xy, nominal))
+            diagram.show([(name, xy)], window=window_around(held, nominal), **shown)
             note = f"ANSI C78.377-2017 quadrangles; the steps' set ({record.get('sdcm_ellipse_set')}) is not drawn."
         else:
-            diagram.show([(name, xy)], labels=[None], title="")
+            diagram.show([(name, xy)], **shown)
             note = "CIE 1931 (x, y): the lamp lies away from the white region."
+        if region is not None:
+            note += " Shaded: the lamp's 95 % region over the Monte Carlo draws."
         listed = max(key_values_height(colour, half - 21), key_values_height(light, half - 22))
         paragraph(page, sheet.left, y + max(listed + 3, size - 14), note, list_w, size=5.8, color=MUTED)
         return y + size + 1
@@ -290,7 +331,7 @@ class LampPages:
         y += heading(page, sheet.left, y, "Spectrum", sheet.width)
         table_w = 50.0
         note_h = line_mm(5.8) * 2 + 1
-        height = sheet.bottom - y - note_h
+        height = min(sheet.bottom - y - note_h, SPECTRUM_MAX_MM)
         ax = axes.spectrum.ax
         ax.set_visible(True)
         ax.set_position(page.box(sheet.left + 9, y + 1, sheet.width - table_w - 14, height - 9))
@@ -301,7 +342,7 @@ class LampPages:
         rows = [[name.replace("_", "-"), quote(record, f"{name}_elr_mW_per_lm"), quote(record, f"{name}_der")]
                 for name in ALPHA_OPIC]
         Table(columns, rows, size=6.2).draw(page, sheet.right - table_w, y + 1)
-        paragraph(page, sheet.left, sheet.bottom - note_h + 1, SPECTRUM_NOTE, sheet.width, size=5.8, color=MUTED)
+        paragraph(page, sheet.left, y + height + 1, SPECTRUM_NOTE, sheet.width, size=5.8, color=MUTED)
 
 
 PAGES = LampPages()

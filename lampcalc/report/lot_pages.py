@@ -160,9 +160,9 @@ def statistics_table(lot, width_mm):
 
 
 class LotPages:
-    """Page builder of a lot's pages (order 200): claims and colour, then the ratings."""
+    """Page builder of a lot's pages (order 150): claims and colour, then the ratings."""
 
-    order = 200
+    order = 150
 
     def _layout(self, report):
         if "lot" not in report.cache:

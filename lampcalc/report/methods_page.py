@@ -16,7 +16,7 @@ from ..standards.ansi_bins import EDITION
 from ..verdicts.comparison import RATIO_FLOOR
 from ..verdicts.wording import INTERPOLATION_WORDS, MISSING, QUALIFIED
 from .caution import CAUTION
-from .tables import line_mm, paragraph, paragraph_height
+from .tables import headed_pages, headed_paragraph, line_mm
 
 HEAD_MM = 38.0  # width of the headings' column
 TEXT_PT = 6.8
@@ -173,15 +173,7 @@ class MethodsPage:
 
             width = report.paper.width_mm - 2 * MARGIN_MM - HEAD_MM
             room = report.paper.height_mm - 2 * MARGIN_MM - HEADER_MM - FOOTER_MM
-            pages, used = [[]], 0.0
-            for block in _blocks(report):
-                height = max(paragraph_height(block[1], width, size=TEXT_PT),
-                             paragraph_height(block[0], HEAD_MM - 3, size=7.5, weight="bold")) + GAP_MM
-                if used + height > room and pages[-1]:
-                    pages.append([])
-                    used = 0.0
-                pages[-1].append(block)
-                used += height
+            pages, used = headed_pages(_blocks(report), HEAD_MM, width, room, size=TEXT_PT, gap_mm=GAP_MM)
             if used + SIGN_MM > room:
                 pages.append([])
             report.cache["methods"] = (pages, width)
@@ -197,9 +189,8 @@ class MethodsPage:
             with sheet.page("methods", title, "What was computed, by which method and edition; what to heed") as page:
                 y = sheet.top
                 for head, text, colour in blocks:
-                    paragraph(page, sheet.left, y, head, HEAD_MM - 3, size=7.5, weight="bold", color=colour)
-                    height = paragraph(page, sheet.left + HEAD_MM, y, text, width, size=TEXT_PT)
-                    y += max(height, paragraph_height(head, HEAD_MM - 3, size=7.5, weight="bold")) + GAP_MM
+                    y += headed_paragraph(page, sheet.left, y, head, text, HEAD_MM, width, size=TEXT_PT,
+                                          head_color=colour) + GAP_MM
                 if k == len(pages) - 1:
                     self._sign(page, sheet, report, y + 3)
 

@@ -16,6 +16,7 @@ from ..plots.style import INK, LAMP, MUTED, pin_axis_labels
 from ..verdicts.wording import count_line, lamp_status, short_status
 from .markers import VALIDITY_LEGEND, flag_legend, flag_letters, quote
 from .tables import Cell, Column, Table, key_values, wrap, key_values_height, line_mm, paragraph, paragraph_height
+from .uncertainty_pages import regions
 
 #: The least height left for the diagram under the table, mm.
 DIAGRAM_MIN_MM = 84.0
@@ -192,8 +193,10 @@ class SummaryPages:
         xy = np.array([(r["x"], r["y"]) for r in report.records[start:end]], dtype=float)
         shown = near_white(xy)
         lamps = [(report.records[k]["name"], xy[k - start]) for k in range(start, end) if shown[k - start]]
-        diagram.show(lamps, labels=[str(k + 1) for k in range(start, end) if shown[k - start]], title="")
-        note = DIAGRAM_NOTE
+        shapes = regions(report)
+        diagram.show(lamps, labels=[str(k + 1) for k in range(start, end) if shown[k - start]], title="",
+                     regions=None if shapes is None else [shapes[k] for k in range(start, end) if shown[k - start]])
+        note = DIAGRAM_NOTE + (" Shaded: each lamp's 95 % region over the Monte Carlo draws." if shapes is not None else "")
         if not shown.all():
             away = ", ".join(str(k + 1) for k in range(start, end) if not shown[k - start])
             note += f" Far from the white region, not shown: {away} (see their pages)."

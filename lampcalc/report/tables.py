@@ -49,7 +49,7 @@ def text_width_mm(text, size_pt, weight="normal"):
 def wrap(text, width_mm, size_pt, weight="normal"):
     """``text`` broken into lines no wider than ``width_mm`` (at spaces; a long word is cut)."""
     lines = []
-    for paragraph in plain_text(text).split("\n") if "\n" in str(text) else [plain_text(text)]:
+    for paragraph in (plain_text(part) for part in str(text).split("\n")):  # each line as given, then wrapped
         line = ""
         for word in paragraph.split(" "):
             trial = f"{line} {word}" if line else word
@@ -131,6 +131,34 @@ def paragraph(page, x_mm, y_mm, text, width_mm, *, size=7.0, weight="normal", co
 def paragraph_height(text, width_mm, *, size=7.0, weight="normal", spacing=1.3):
     """The height :func:`paragraph` would draw, mm."""
     return len(wrap(text, width_mm, size, weight)) * line_mm(size, spacing)
+
+
+HEAD_PT = 7.5  # the headings of headed paragraphs
+
+
+def headed_height(head, text, head_mm, text_mm, *, size):
+    """The height :func:`headed_paragraph` draws, mm."""
+    return max(paragraph_height(text, text_mm, size=size), paragraph_height(head, head_mm - 3, size=HEAD_PT, weight="bold"))
+
+
+def headed_paragraph(page, x_mm, y_mm, head, text, head_mm, text_mm, *, size, head_color=INK):
+    """A bold heading in a column of ``head_mm`` and its text beside it; returns the height, mm."""
+    paragraph(page, x_mm, y_mm, head, head_mm - 3, size=HEAD_PT, weight="bold", color=head_color)
+    paragraph(page, x_mm + head_mm, y_mm, text, text_mm, size=size)
+    return headed_height(head, text, head_mm, text_mm, size=size)
+
+
+def headed_pages(blocks, head_mm, text_mm, room_mm, *, size, gap_mm):
+    """Blocks ``(head, text, …)`` laid on pages of ``room_mm``: (list of pages of blocks, height used on the last)."""
+    pages, used = [[]], 0.0
+    for block in blocks:
+        height = headed_height(block[0], block[1], head_mm, text_mm, size=size) + gap_mm
+        if used + height > room_mm and pages[-1]:
+            pages.append([])
+            used = 0.0
+        pages[-1].append(block)
+        used += height
+    return pages, used
 
 
 @dataclass(frozen=True)

@@ -79,7 +79,8 @@ class SpectralBatch:
 
     def __post_init__(self):
         wl = np.asarray(self.wavelength_nm, dtype=float)
-        values = np.atleast_2d(np.asarray(self.values, dtype=float))
+        # Row-major: a lamp's sums then run in the same order whatever batch or slice holds it.
+        values = np.ascontiguousarray(np.atleast_2d(np.asarray(self.values, dtype=float)))
         if wl.ndim != 1 or wl.size < 2 or not np.all(np.diff(wl) > 0):
             raise ValueError("wavelength_nm must be a strictly increasing 1-D array of at least 2 values")
         if values.ndim != 2 or values.shape[1] != wl.size:
@@ -173,7 +174,13 @@ class SpectralBatch:
             # The wavelengths are shared by every lamp of the batch (one file): name the file.
             raise InputError(f"{self._where(0).split(', column')[0]}: {err}") from None
         truncated = (lo > FULL_RANGE_NM[0]) | (hi < FULL_RANGE_NM[1])
-        undershoot = np.any(values < 0, axis=1)
+        if used == "integrated":
+            # The data are non-negative, so is every integral of them: a value below zero here is
+            # rounding in the differences of the antiderivatives (~1e-13 of the total), not a result.
+            values = np.maximum(values, 0.0)
+        # Only Sprague's polynomial can ring below zero; linear and integrated values of
+        # non-negative data cannot.
+        undershoot = np.any(values < 0, axis=1) if used == "sprague" else np.zeros(self.n_lamps, dtype=bool)
         flags = tuple(
             f + (("range_truncated",) if t else ()) + (("interpolation_undershoot",) if u else ())
             for f, t, u in zip(self.flags, truncated, undershoot)

@@ -8,6 +8,7 @@ within the lamp's measured range.
 import numpy as np
 
 from .resampling import GRID_NM
+from .row_products import row_dot
 
 
 def spectral_features(values, measured_range_nm):
@@ -54,7 +55,7 @@ def spectral_features(values, measured_range_nm):
     with np.errstate(invalid="ignore", divide="ignore"):
         x_left = li + (half - s[rows, li]) / (s[rows, li + 1] - s[rows, li])
         x_right = ri - 1 + (half - s[rows, ri - 1]) / (s[rows, ri] - s[rows, ri - 1])
-        centroid = (s @ GRID_NM) / s.sum(axis=1)
+        centroid = row_dot(s, GRID_NM) / s.sum(axis=1)
         fwhm = np.where(found, x_right - x_left, np.nan)
     return {
         "peak_nm": GRID_NM[peak],

@@ -28,6 +28,8 @@ never extrapolates.
 
 import numpy as np
 
+from .row_products import row_dot
+
 #: The CIE 015:2018 computation grid, 360–830 nm at 1 nm.
 GRID_NM = np.arange(360.0, 831.0)
 
@@ -129,7 +131,7 @@ def sprague(wavelength_nm, values, target_nm=GRID_NM):
         )
     # The interpolant is linear in the data: interpolate the unit vectors once, then one matrix product
     # gives every spectrum of the batch.
-    return values @ _sprague_weights(wl, target)
+    return row_dot(values, _sprague_weights(wl, target))
 
 
 def _sprague_weights(wl, target):

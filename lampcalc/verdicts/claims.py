@@ -33,6 +33,7 @@ from ..standards.ansi_bins import DUV_TOLERANCE, FLEXIBLE_NOTE, ansi_bin_set, ca
 from ..standards.bin_sets import margins
 from ..standards.ellipse_sets import shipped_ellipse_set
 from ..standards.steps import steps_from_nominal
+from .wording import format_value
 
 #: Claim columns and their meaning; every other column is refused.
 CLAIM_COLUMNS = {
@@ -251,7 +252,8 @@ def _efficacy_check(v, r):
     if radiant > watts:
         return _check(
             "efficacy_lm_per_W", claimed, None, None,
-            f"not evaluated: radiant flux {radiant:.4g} W exceeds the electrical power {watts:g} W, which is "
+            f"not evaluated: radiant flux {format_value('radiant_flux_W', radiant, unit=True)} exceeds the electrical "
+            f"power {format_value('electrical_W', watts, unit=True)}, which is "
             "impossible (check the spectrum's unit, e.g. mW/nm read as W/nm, and the power)",
         )
     efficacy = flux / watts

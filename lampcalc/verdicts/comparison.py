@@ -129,12 +129,18 @@ def compare_ratings(reference, test, *, limit_delta_uv_prime=None):
     return {"pairs": cols, "unmatched_reference": lone_reference, "unmatched_test": lone_test}
 
 
-def _joined(a, b):
-    if isinstance(a, np.ndarray):
-        return np.concatenate([a, b])
+def _joined_extra(key, a, b):
+    """One extra of both sides as one (spectra, TM-30 bin means, Monte Carlo draws); None when it cannot be joined."""
     if isinstance(a, SpectralBatch):
         return SpectralBatch.concatenate([a, b])
-    return tuple(a) + tuple(b)
+    if isinstance(a, np.ndarray):
+        return np.concatenate([a, b])
+    if key == "uncertainty":  # the same model drew both sides: the lamps' draws one after the other
+        import dataclasses
+
+        kept = {k: np.concatenate([a.kept[k], b.kept[k]]) for k in (a.kept or {}) if k in (b.kept or {})}
+        return dataclasses.replace(a, xy=np.concatenate([a.xy, b.xy]), kept=kept)
+    return None
 
 
 def both_sides(reference, test):
@@ -144,11 +150,13 @@ def both_sides(reference, test):
     carry the same names. For a report that shows every lamp of a comparison.
     """
     from ..rating.ratings import Ratings
+    from ..rating.streaming import join_ratings
 
-    columns = {key: _joined(reference[key], test[key]) for key in reference.columns if key in test.columns}
+    columns = dict(join_ratings([Ratings(reference.columns), Ratings(test.columns)]).columns)
     columns["name"] = tuple(f"{n} (reference)" for n in reference["name"]) + tuple(f"{n} (test)" for n in test["name"])
-    extras = {key: _joined(reference.extras[key], test.extras[key]) for key in reference.extras if key in test.extras}
-    return Ratings(columns, extras)
+    extras = {key: _joined_extra(key, reference.extras[key], test.extras[key])
+              for key in reference.extras if key in test.extras}
+    return Ratings(columns, {key: value for key, value in extras.items() if value is not None})
 
 
 def normalised_spectra(reference_values, test_values, reference_range_nm=None, test_range_nm=None):

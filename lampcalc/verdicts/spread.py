@@ -121,7 +121,7 @@ def ellipse_boundary(mean, covariance, chi2, n_points=721):
     return np.asarray(mean, dtype=float) + (unit * np.sqrt(chi2 * np.clip(eigenvalues, 0.0, None))) @ eigenvectors.T
 
 
-def _hull_vertices(points):
+def hull_vertices(points):
     """Indices of the convex hull's vertices; every index when the points are degenerate (on a line)."""
     from scipy.spatial import ConvexHull, QhullError
 
@@ -152,7 +152,7 @@ def farthest_pair(points, block=_BLOCK):
     n = p.shape[0]
     if n < 2:
         return float("nan"), (-1, -1)
-    candidates = _hull_vertices(p) if n > _HULL_ABOVE else np.arange(n)
+    candidates = hull_vertices(p) if n > _HULL_ABOVE else np.arange(n)
     q = p[candidates]
     best, pair = -1.0, (0, 0)
     for i0 in range(0, q.shape[0], block):

@@ -220,6 +220,12 @@ def word_check(check, *, nominal=None, flags=()):
     A verdict is qualified (:data:`QUALIFIED`) when it rests on a value in doubt or on a value
     the check's note says is not confirmed from a published source.
     """
+    return worded_check(check, nominal, flags)[0]
+
+
+def worded_check(check, nominal, flags):
+    """:func:`word_check`, and how its numbers are written: the wording, the output key of the measured
+    value, its decimals, and the margin's (decimals, scale from the check's unit, unit)."""
     criterion, claimed, measured, margin, passed = (check[k] for k in ("criterion", "claimed", "measured", "margin", "pass"))
     note = check.get("note") or ""
     shown = None
@@ -249,7 +255,7 @@ def word_check(check, *, nominal=None, flags=()):
         basis = f"not computable for this lamp{': ' + basis if basis else ''}"
     elif basis == "not computable":
         basis = "not computable for this lamp"
-    return ClaimWording(
+    wording = ClaimWording(
         claim=claim,
         measured=format_value(key, measured, doubtful=doubtful, unit=True, decimals=shown),
         margin=margin_words,
@@ -258,6 +264,18 @@ def word_check(check, *, nominal=None, flags=()):
         passed=passed,
         qualified=passed is not None and (doubtful or "not confirmed" in note),
     )
+    return wording, key, shown if shown is not None else DIGITS.get(key, (None,))[0], _margin_measure(check, key, shown)
+
+
+def _margin_measure(check, key, shown):
+    """(decimals, scale, unit) of a check's margin as worded: the quadrangle's in Δuv, not 1e-3 of it."""
+    criterion = check["criterion"]
+    if criterion in ("ansi_quadrangle", "bin"):
+        return 4, 1e-3, "Δuv"
+    decimals, unit = DIGITS.get(key, (None, ""))
+    if criterion in _NOMINAL_CRITERIA:
+        return decimals, 1.0, unit
+    return (0 if shown is None else shown), 1.0, unit
 
 
 def _claim_decimals(value):
@@ -265,15 +283,18 @@ def _claim_decimals(value):
     return 0 if float(value).is_integer() else min(4, len(f"{value:g}".split(".")[-1]))
 
 
-def word_checks(lamp_verdict, flags=()):
-    """Every check of one lamp (a ``Verdicts.lamps`` entry) in words, in order."""
+def with_nominal(lamp_verdict):
+    """Each check of one lamp (a ``Verdicts.lamps`` entry) with the claimed nominal CCT it is read against."""
     nominal = None
-    out = []
     for check in lamp_verdict["checks"]:
         if check["criterion"] == "ansi_quadrangle":
             nominal = check["claimed"]
-        out.append(word_check(check, nominal=nominal, flags=flags))
-    return out
+        yield check, nominal
+
+
+def word_checks(lamp_verdict, flags=()):
+    """Every check of one lamp (a ``Verdicts.lamps`` entry) in words, in order."""
+    return [word_check(check, nominal=nominal, flags=flags) for check, nominal in with_nominal(lamp_verdict)]
 
 
 def lamp_status(lamp_verdict):
@@ -354,3 +375,39 @@ def pair_verdicts(names, verdicts):
         else:
             out.append(None)
     return out
+
+
+def format_uncertainty(u, unit="", scale=1.0):
+    """A standard uncertainty (or a guard band) to two significant digits, in ``unit``.
+
+    Two significant digits at most, as JCGM 100:2008 7.2.6 advises (from memory); never in
+    ``1e-4`` notation.
+
+    Examples
+    --------
+    >>> format_uncertainty(0.000741, "Δuv"), format_uncertainty(22.46, "K"), format_uncertainty(0.229)
+    ('0.00074 Δuv', '22 K', '0.23')
+    """
+    if not _finite(u):
+        return MISSING
+    u = u * scale
+    digits = 1 - math.floor(math.log10(abs(u))) if u else 0
+    if u and abs(round(u, digits)) >= 10.0 ** (2 - digits):  # rounded up into the next decade (0.0999 -> 0.10)
+        digits -= 1
+    return f"{_plain_number(round(u, digits), max(0, digits))} {unit}".strip()
+
+
+def format_share(p):
+    """A share of the Monte Carlo draws in %, never rounded to 0 % or 100 % unless it is exactly that.
+
+    Examples
+    --------
+    >>> format_share(0.9996), format_share(1.0), format_share(0.0004), format_share(None)
+    ('99.9 %', '100 %', '0.1 %', '–')
+    """
+    if p is None:
+        return MISSING
+    if p in (0.0, 1.0):
+        return f"{100 * p:.0f} %"
+    tenths = math.floor(1000 * p) if p > 0.5 else math.ceil(1000 * p)
+    return f"{tenths / 10:.1f} %"

@@ -31,3 +31,30 @@ def test_bad_set_files_refused_before_anything_is_written(run, write, tmp_path):
     result = run("check", *demo_files(), "--claims", demo_claims(), "--ellipses", bad, "--json", out)
     assert result.exit_code == 2 and not out.exists()
     assert result.stderr.strip() == f"lampcalc: {bad}, line 7: the metric is not an ellipse (g11 > 0 and g11*g22 - g12^2 > 0 are needed)"
+
+
+def test_verdicts_of_a_streamed_run_are_those_of_one_batch(run, tmp_path, monkeypatch):
+    # lampcalc's one-batch path (rate_spectra on every lamp, check_claims) is the reference; chunks of 2
+    # lamps, two workers when dask is there, must not change a byte of the verdicts
+    import importlib.util
+
+    import numpy as np
+
+    from lampcalc.io.spectrum_files import read_spectra
+    from lampcalc.rating import streaming
+    from lampcalc.rating.rate import rate_spectra
+    from lampcalc.standards.ellipse_sets import shipped_ellipse_set
+    from lampcalc.verdicts.claims import check_claims, read_claims
+
+    claims = read_claims(demo_claims())
+    batches = [read_spectra(f) for f in demo_files()]
+    names = [n for b in batches for n in b.names]
+    nominal = {c.lamp.casefold(): c.values.get("nominal_cct_K", np.nan) for c in claims.values()}
+    whole = rate_spectra(batches, nominal_cct_K=[nominal.get(n.casefold(), np.nan) for n in names])
+    expected = check_claims(claims, whole, demo_claims(), ellipse_set=shipped_ellipse_set()).to_json()
+    monkeypatch.setattr(streaming, "CHUNK_LAMPS", 2)
+    workers = ["--workers", "2"] if importlib.util.find_spec("dask") else []
+    out = tmp_path / "v.json"
+    result = run("check", *demo_files(), "--claims", demo_claims(), "--json", out, *workers)
+    assert result.exit_code == 1, result.output
+    assert out.read_text() == expected

@@ -110,3 +110,19 @@ def test_bad_outputs_refused_before_the_work(run, tmp_path, bb_table, args, frag
     ref.write_text(bb_table([2700.0]))
     result = run("compare", ref, ref, *[a.format(tmp=tmp_path) for a in args])
     assert result.exit_code == 2 and fragment in result.stderr and result.output.count("\n") <= 1
+
+
+def test_report_with_measurement_uncertainty(run, tmp_path):
+    # Both sides drawn by the demo laboratory's model (spectra_demo): the report shows the lamps' draws and, beside
+    # the verdict on the measured shift, the shift's u, 95 % interval and the decision of the JSON written with it.
+    from lampcalc.io.demo_data import demo_measurement_model
+
+    result = run("compare", SHEET, SAMPLE, "--limit-delta-uv-prime", "0.003", "--uncertainty", demo_measurement_model(),
+                 "--decision-rule", "guarded", "--json", tmp_path / "c.json", "--report", tmp_path / "c.pdf")
+    assert result.exit_code in (0, 1), result.output
+    (pair,) = json.loads((tmp_path / "c.json").read_text())["pairs"]
+    text = " ".join(" ".join(pdf_pages(tmp_path / "c.pdf")[1].split()).split())
+    low, high = pair["delta_uv_prime_interval95"]
+    assert (f"With measurement uncertainty: Δu′v′ {pair['delta_uv_prime']:.5f}, u {pair['delta_uv_prime_u']:.5f}, "
+            f"95 % interval {low:.5f} to {high:.5f}") in text
+    assert f"decision: {pair['decision']} (guarded acceptance" in text

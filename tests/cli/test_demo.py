@@ -44,6 +44,16 @@ def test_demo_writes_results(run, tmp_path):
     judged = json.loads((out / "checks_uncertainty.json").read_text())
     assert [lamp["lamp"] for lamp in judged] == ["QF-A60-3000"]
     assert all(c["decision"] in ("pass", "conditional pass", "conditional fail", "fail") for c in judged[0]["checks"])
+    # Its report shows the lamp's intervals and decisions, and the model in words.
+    from pypdf import PdfReader
+
+    from lampcalc.verdicts.wording import format_value
+
+    text = " ".join(" ".join(page.extract_text().split()) for page in PdfReader(out / "report_uncertainty.pdf").pages)
+    assert "Measurement uncertainty" in text and "quillfen_qc_lab_model.toml" in text
+    assert f"Decision: {judged[0]['decision']} (guarded acceptance" in text
+    cct = next(c for c in judged[0]["checks"] if c["criterion"] == "ansi_cct_K")
+    assert "[{}, {}] K".format(*(format_value("cct_K", v) for v in cct["measured_interval95"])) in text
 
 
 # --- lampcalc cct ---

@@ -163,3 +163,157 @@ def test_terminal_explains_every_flag_and_marks_unconfirmed_values(run, write, b
         assert f"{flag}: {explain(flag)}" in result.stdout
     assert "(2200)" in result.stdout  # the category, in parentheses: its corners are unconfirmed
     assert "from memory" not in result.stdout
+
+
+# --- any number of lamps: streamed in chunks, the same bytes (docs/scale.md) ---
+
+
+def _many_lamps(write, n, name="many.csv", step=5, seed=0):
+    """A wide CSV of n lamps of a fictional supplier (blackbodies of random temperature, made up)."""
+    import numpy as np
+
+    from lampcalc.physics.blackbody import spectral_radiance
+
+    temps = np.random.default_rng(seed).uniform(2200.0, 8000.0, n)
+    wl = np.arange(380.0, 781.0, step)
+    values = spectral_radiance(temps, wl)
+    values = values / values.max(axis=1, keepdims=True)
+    lines = ["nm," + ",".join(f"QF-M{seed}-{k:04d}" for k in range(n))]
+    lines += [f"{w:g}," + ",".join(repr(float(v)) for v in col) for w, col in zip(wl, values.T)]
+    return write(name, "\n".join(lines) + "\n")
+
+
+@pytest.fixture
+def small_chunks(monkeypatch):
+    """Chunks of 3 lamps, and every text file through the large-table reader in blocks of a few lines."""
+    from lampcalc.io import large_tables
+    from lampcalc.rating import streaming
+
+    monkeypatch.setattr(streaming, "CHUNK_LAMPS", 3)
+    monkeypatch.setattr(large_tables, "FAST_MIN_BYTES", 0)
+    monkeypatch.setattr(large_tables, "BLOCK_BYTES", 500)
+
+
+def test_streamed_outputs_are_the_bytes_of_one_batch(run, write, bb_table, tmp_path, small_chunks):
+    # lampcalc's one-batch path (rate_spectra on every lamp read whole) is the reference here
+    import openpyxl
+
+    from lampcalc.io.spectrum_files import read_spectra
+    from lampcalc.io.workbook import write_workbook
+    from lampcalc.rating.rate import rate_spectra
+    from lampcalc.rating.wide_columns import ratings_sheets
+
+    files = [_many_lamps(write, 11), write("a.csv", bb_table([2700.0, 4000.0])), _many_lamps(write, 5, "b.csv", 1, 1)]
+    outs = {k: tmp_path / f"r.{k}" for k in ("json", "csv", "xlsx")}
+    result = run("rate", *files, *(a for k, p in outs.items() for a in (f"--{k}", p)))
+    assert result.exit_code == 0, result.output
+    whole = rate_spectra([read_spectra(f) for f in files])
+    assert outs["json"].read_text() == whole.to_json()
+    assert outs["csv"].read_text() == whole.to_csv()
+    write_workbook(tmp_path / "whole.xlsx", ratings_sheets(whole))
+    got, expected = openpyxl.load_workbook(outs["xlsx"]), openpyxl.load_workbook(tmp_path / "whole.xlsx")
+    assert got.sheetnames == ["ratings", "flags", "notes"]
+    for title in ("ratings", "flags"):
+        assert [[c.value for c in row] for row in got[title].iter_rows()] == \
+            [[c.value for c in row] for row in expected[title].iter_rows()]
+
+
+def test_two_workers_write_the_same_bytes(run, write, tmp_path, small_chunks):
+    pytest.importorskip("dask")
+    files = [_many_lamps(write, 10), _many_lamps(write, 4, "b.csv", 5, 1)]
+    one, two = tmp_path / "one.json", tmp_path / "two.json"
+    assert run("rate", *files, "--json", one).exit_code == 0
+    result = run("rate", *files, "--json", two, "--workers", "2")
+    assert result.exit_code == 0, result.output
+    assert one.read_bytes() == two.read_bytes()
+
+
+def test_workers_without_dask_fail_in_one_line_naming_the_extra(run, write, bb_table, monkeypatch):
+    import importlib.util
+
+    real = importlib.util.find_spec
+    monkeypatch.setattr(importlib.util, "find_spec", lambda name, *a: None if name == "dask" else real(name, *a))
+    result = run("rate", write("a.csv", bb_table([3000.0])), "--workers", "2")
+    assert result.exit_code == 2
+    assert result.stderr.strip() == "lampcalc: --workers 2 needs dask: pip install 'lampcalc[dask]'"
+    assert run("rate", write("b.csv", bb_table([3000.0])), "--workers", "1").exit_code == 0
+
+
+def test_a_large_batch_shows_its_first_and_last_lamps(run, write, tmp_path, monkeypatch, small_chunks):
+    from lampcalc.rating import tally
+
+    monkeypatch.setattr(tally, "SHOWN", 4)
+    path = _many_lamps(write, 9)
+    result = run("rate", path)
+    assert result.exit_code == 0
+    shown = [line.split()[0] for line in result.stdout.splitlines() if line.startswith("QF-M0-")]
+    assert shown == ["QF-M0-0000", "QF-M0-0001", "QF-M0-0007", "QF-M0-0008"]
+    assert "(the first 2 and the last 2 of 9 lamps are shown)" in result.stdout
+    # every lamp's flags are counted in the legend: the shipped steps metric is unconfirmed for all 9
+    assert "steps_metric_unconfirmed (9 lamps): " in result.stdout
+    assert "write every lamp's ratings with --json, --csv or --xlsx" in result.stdout
+    result = run("rate", path, "--csv", tmp_path / "r.csv")
+    assert "--json, --csv or --xlsx" not in result.stdout
+    assert len((tmp_path / "r.csv").read_text().splitlines()) == 10
+
+
+def test_a_file_refused_deep_in_its_table_adds_no_lamp(run, write, tmp_path, small_chunks):
+    good = _many_lamps(write, 7)
+    lines = _many_lamps(write, 8, "bad.csv", 5, 2).read_text().splitlines()
+    cells = lines[60].split(",")
+    cells[6] = "-0.5"  # negative far beyond noise, in the last rows, after several chunks' worth of lamps
+    lines[60] = ",".join(cells)
+    bad = write("bad.csv", "\n".join(lines) + "\n")
+    out = tmp_path / "r.json"
+    result = run("rate", good, bad, "--json", out)
+    assert result.exit_code == 2
+    assert "bad.csv, line 61, column 7 ('QF-M2-0005'): value -0.5 at" in result.stderr
+    assert "1 of 2 files could not be rated" in result.stderr
+    assert [r["name"][:5] for r in json.loads(out.read_text())] == ["QF-M0"] * 7
+
+
+def test_nothing_rated_leaves_the_outputs_as_they_were(run, write, tmp_path):
+    out = tmp_path / "r.json"
+    out.write_text("previous")
+    result = run("rate", write("bad.csv", "nm,a\n380,x\n"), "--json", out)
+    assert result.exit_code == 2 and out.read_text() == "previous"
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["bad.csv", "r.json"]
+
+
+def test_no_progress_bar_when_piped(run, write, small_chunks):
+    result = run("rate", _many_lamps(write, 8))
+    assert result.exit_code == 0 and "rating spectra" not in result.stderr and result.stderr == ""
+
+
+@pytest.mark.parametrize("workers", ["1", "2"])
+def test_interrupted_stream_leaves_no_temporary_file_and_no_worker(tmp_path, write, workers):
+    # exit status 143 = 128 + SIGTERM (POSIX shells, common practice, no source)
+    import os
+    import signal
+    import subprocess
+    import sys
+    import time
+
+    if workers == "2":
+        pytest.importorskip("dask")
+    _many_lamps(write, 3000)
+    (tmp_path / "out.json").write_text("old")
+    code = "import sys; from lampcalc.cli import main; sys.argv[0] = 'lampcalc'; main(sys.argv[1:])"
+    child = subprocess.Popen([sys.executable, "-c", code, "rate", "many.csv", "--json", "out.json", "--workers", workers],
+                             cwd=tmp_path, stderr=subprocess.PIPE)
+    deadline = time.monotonic() + 60
+    while not list(tmp_path.glob(".out.json.*.tmp")):  # writing has begun
+        assert time.monotonic() < deadline and child.poll() is None
+        time.sleep(0.02)
+    time.sleep(1.0)
+    helpers = subprocess.run(["pgrep", "-P", str(child.pid)], capture_output=True, text=True).stdout.split()
+    os.kill(child.pid, signal.SIGTERM)
+    _, stderr = child.communicate(timeout=60)
+    assert child.returncode == -signal.SIGTERM or child.returncode == 143, stderr
+    assert b"interrupted" in stderr and b"Traceback" not in stderr
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["many.csv", "out.json"]
+    assert (tmp_path / "out.json").read_text() == "old"
+    deadline = time.monotonic() + 20
+    while any(os.path.exists(f"/proc/{pid}") for pid in helpers):  # worker processes end with the run
+        assert time.monotonic() < deadline, helpers
+        time.sleep(0.1)

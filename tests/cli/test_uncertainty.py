@@ -72,6 +72,11 @@ def test_check_adds_decisions_beside_the_verdicts(run, files, tmp_path):
     ra = next(c for c in new[1]["checks"] if c["criterion"] == "ra")
     assert ra["decision"] == "fail" and ra["conformance_probability"] == 0.0  # CIE 13.3: Ri = 100 − 4.6·ΔE ≤ 100, so no draw reaches Ra 101
     assert "decision rule: guarded acceptance, w = 3·u" in after.stdout and "draws holding" in after.stdout
+    # The decision table words its claims as the verdict table does (lampcalc.verdicts.wording), margins in Δuv.
+    verdict_part, decision_part = after.stdout.split("With measurement uncertainty")
+    for claim in ("nominal 3000 K: in its quadrangle", "Ra ≥ 99", "Ra ≥ 101"):
+        assert claim in verdict_part and claim in decision_part
+    assert "Δuv" in decision_part and "e-3 uv" not in decision_part
 
 
 @pytest.mark.parametrize(
@@ -95,3 +100,40 @@ def test_a_bad_spectrum_file_does_not_stop_the_others(run, files, write, tmp_pat
     result = run("rate", spectra, bad, "--uncertainty", model, "--json", out)
     assert result.exit_code == 2 and "bad.csv, line 3" in result.stderr
     assert [r["name"] for r in json.loads(out.read_text())] == ["bb2950", "bb3500"]
+
+
+def test_compare_with_uncertainty_adds_the_differences_uncertainty_and_a_decision(run, write, bb_table, tmp_path):
+    # Planck's law: blackbodies at 2950 K and 3050 K (11 mired apart) lie about 0.004 apart in u′v′ (from
+    # memory), twice a 0.002 limit and far beyond what this model's noise can move.
+    reference, test = write("ref.csv", bb_table([2950.0])), write("test.csv", bb_table([3050.0]))
+    model = write("lab.toml", MODEL)
+    plain, judged = tmp_path / "plain.json", tmp_path / "judged.json"
+    before = run("compare", reference, test, "--limit-delta-uv-prime", "0.002", "--json", plain)
+    after = run("compare", reference, test, "--limit-delta-uv-prime", "0.002", "--uncertainty", model,
+                "--decision-rule", "guarded", "--json", judged, "--csv", tmp_path / "judged.csv")
+    assert before.exit_code == after.exit_code == 1  # the result follows the measured Δu′v′, as before
+    (old,), (new,) = (json.loads(path.read_text())["pairs"] for path in (plain, judged))
+    same = [k for k in old if not k.endswith("flags")]  # each side's flags may gain those of its draws
+    assert {k: new[k] for k in same} == {k: old[k] for k in same}
+    assert new["delta_uv_prime_u"] > 0 and new["delta_cct_K_interval95"][0] < new["delta_cct_K"] < new["delta_cct_K_interval95"][1]
+    assert new["decision"] == "fail" and new["conformance_probability"] == 0.0
+    assert "reference and test drawn independently" in after.stdout and "u(margin)" in after.stdout
+    header = (tmp_path / "judged.csv").read_text().splitlines()[0].split(",")
+    assert header[header.index("delta_uv_prime") + 1] == "delta_uv_prime_u"
+    refused = run("compare", reference, test, "--decision-rule", "guarded")
+    assert refused.exit_code == 2 and "need --uncertainty" in refused.stderr
+
+
+def test_lot_with_uncertainty_adds_it_to_the_statistics_and_says_what_it_is_not(run, write, bb_table, tmp_path):
+    spectra, model = write("lot.csv", bb_table([2950.0, 2990.0, 3020.0, 3060.0])), write("lab.toml", MODEL)
+    plain, judged = tmp_path / "plain.json", tmp_path / "judged.json"
+    before = run("lot", spectra, "--json", plain)
+    after = run("lot", spectra, "--uncertainty", model, "--json", judged, "--csv", tmp_path / "summary.csv")
+    assert before.exit_code == after.exit_code == 0, after.output
+    old, new = (json.loads(path.read_text())["lot"] for path in (plain, judged))
+    assert {k: new[k] for k in old} == old  # the statistics themselves are those of the spectra as measured
+    assert new["cct_K_mean_u"] > 0 and new["cct_K_mean_interval95"][0] < new["cct_K_mean"] < new["cct_K_mean_interval95"][1]
+    assert new["measurement_model"].startswith("noise 0.5 %")
+    assert "not the lot's sampling uncertainty" in after.stdout
+    header = (tmp_path / "summary.csv").read_text().splitlines()[0].split(",")
+    assert header[header.index("ra_mean") + 1: header.index("ra_mean") + 3] == ["ra_mean_u", "ra_mean_interval95"]

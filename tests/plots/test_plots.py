@@ -161,3 +161,27 @@ def test_names_are_plain_text(tmp_path):
         save_figure(fig, tmp_path / "math.png")
     labels = [t.get_text() for t in ax.texts if (t.get_gid() or "").startswith("label:")]
     assert labels == ["$\\foo$"]
+
+
+@pytest.mark.parametrize("space, convert", [("xy", lambda xy: xy), ("upvp", xy_to_upvp)])
+def test_regions_are_drawn_under_their_lamps_and_held_by_the_window(space, convert):
+    # A lamp's 95 % region (lampcalc.rating.coverage_region) as given, in the diagram's own space; a
+    # segment where the draws were on one line. The default window widens to hold a region far out.
+    from lampcalc.plots.diagram import ChromaticityDiagram
+
+    square = np.array([[0.455, 0.405], [0.462, 0.405], [0.462, 0.414], [0.455, 0.414]])
+    wide = np.array([[0.30, 0.30], [0.58, 0.46], [0.58, 0.30]])
+    segment = np.array([[0.378, 0.374], [0.383, 0.379]])
+    with figure_style():
+        ax = new_figure().add_subplot()
+        diagram = ChromaticityDiagram(ax, space=space, zoom=True)
+        diagram.show(LAMPS, regions=[square, segment, wide])
+    regions = _by_gid(ax, "region:")
+    assert set(regions) == {"region:A", "region:B", "region:C"}
+    np.testing.assert_allclose(_xy_data(regions["region:A"])[:4], convert(square), atol=1e-12)
+    np.testing.assert_allclose(_xy_data(regions["region:B"]), convert(segment), atol=1e-12)
+    (x0, x1), (y0, y1) = ax.get_xlim(), ax.get_ylim()
+    far = convert(wide)
+    assert x0 <= far[:, 0].min() and far[:, 0].max() <= x1 and y0 <= far[:, 1].min() and far[:, 1].max() <= y1
+    diagram.show(LAMPS)  # shown again without regions: none left over
+    assert not _by_gid(ax, "region:")

@@ -212,3 +212,51 @@ def test_output_keys_follow_their_rating_and_are_documented():
     wide = list(wide_columns(r))
     assert wide[wide.index("cct_K"): wide.index("cct_K") + 4] == ["cct_K", "cct_K_u", "cct_K_interval95_low", "cct_K_interval95_high"]
     assert wide.index("r15") + 1 == wide.index("r1_u") and wide.index("r15_u") + 1 == wide.index("r1_interval95_low")
+
+
+def _tilted_to_dc(target_dc):
+    """A 3000 K blackbody with a green hump, scaled until its CIE 13.3 DC is ``target_dc`` (a constructed lamp)."""
+    from scipy.optimize import brentq
+
+    from lampcalc.physics.blackbody import spectral_radiance
+
+    bb, hump = spectral_radiance(3000.0, GRID_NM), np.exp(-0.5 * ((GRID_NM - 540.0) / 20.0) ** 2)
+
+    def dc(a):
+        return rate_spectra(SpectralBatch(GRID_NM, (bb * (1 + a * hump))[None], ("t",)))["cri_dc"][0] - target_dc
+
+    return bb * (1 + brentq(dc, 0.0, 1.0, xtol=1e-9) * hump)
+
+
+def test_draws_that_cross_a_validity_limit_are_flagged_with_their_share():
+    # CIE 13.3-1995 limits Ra to DC ≤ 5.4e-3. A lamp at DC = 5.4e-3 under noise: part of the draws lie beyond.
+    from lampcalc.rating.flags import doubtful_interval_keys, explain
+
+    lamp = SpectralBatch(GRID_NM, _tilted_to_dc(5.4e-3)[None], ("edge",))
+    r = rate_with_uncertainty(lamp, MeasurementModel(noise_percent=1.0, draws=400))
+    low, high = r["cri_dc_interval95"][0]
+    assert low < 5.4e-3 < high
+    (entry,) = [e for e in r["uncertainty_flags_in_draws"][0] if e.startswith("cri_outside_validity")]
+    share = float(entry.split(": ")[1].split(" %")[0])
+    assert 2.5 < share < 97.5  # the limit lies inside the 95 % interval, so between its tails
+    assert "uncertainty_crosses_validity" in r["flags"][0] and explain("uncertainty_crosses_validity")
+    assert {"ra", "ri"} <= doubtful_interval_keys(r["flags"][0], r["uncertainty_flags_in_draws"][0])
+    # Far inside the limit (DC = 2e-3), no draw crosses it.
+    inside = rate_with_uncertainty(SpectralBatch(GRID_NM, _tilted_to_dc(2e-3)[None], ("in",)),
+                                   MeasurementModel(noise_percent=1.0, draws=200))
+    assert not any(e.startswith("cri_outside_validity") for e in inside["uncertainty_flags_in_draws"][0])
+
+
+@pytest.mark.parametrize("t_K", [3220.0, 3000.0])
+def test_a_category_that_changes_between_draws_is_flagged(t_K):
+    # ANSI C78.377-2017 Table 1: the 3000 K category spans 3045 ± 175 K, so 3220 K is the edge to 3500 K;
+    # a blackbody there falls on both sides under the model, one at 3000 K on one side only. The check is
+    # against the categories of the draws' own (x, y), classified apart from the rating.
+    from lampcalc.physics.blackbody import spectral_radiance
+    from lampcalc.standards.ansi_bins import classify
+
+    lamp = SpectralBatch(GRID_NM, spectral_radiance(t_K, GRID_NM)[None], ("bb",))
+    r = rate_with_uncertainty(lamp, MeasurementModel(noise_percent=1.0, wavelength_shift_nm=0.5, draws=300))
+    found = classify(r.extras["uncertainty"].xy[0])["nominal_cct_K"]
+    assert len(set(np.nan_to_num(found, nan=-1.0).tolist())) == (2 if t_K == 3220.0 else 1)
+    assert ("uncertainty_category_varies" in r["flags"][0]) == (t_K == 3220.0)

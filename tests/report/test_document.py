@@ -99,8 +99,11 @@ def test_page_builders_in_order_and_a_page_added_from_outside(tmp_path, two_lamp
     import lampcalc
     from lampcalc.report.document import page_builders
 
-    assert [type(b).__name__ for b in page_builders()] == ["SummaryPages", "LotPages", "AnglePages", "ComparisonPages",
-                                                           "LampPages", "MethodsPage"]
+    builders = {type(b).__name__: b for b in page_builders()}
+    names = list(builders)  # other issues add builders of their own between these
+    order = ["SummaryPages", "LotPages", "AnglePages", "ComparisonPages", "UncertaintyPages", "LampPages",
+             "MethodsPage"]
+    assert [n for n in names if n in order] == order
 
     class LotPage:  # what another engineer's module would define as PAGES
         order = 200
@@ -112,7 +115,7 @@ def test_page_builders_in_order_and_a_page_added_from_outside(tmp_path, two_lamp
             with sheet.page("lot", "Lot statistics", f"{len(report.records)} lamps") as page:
                 page.text(sheet.left, sheet.top, "spread of the lot")
 
-    summary, *_, methods = page_builders()
+    summary, methods = builders["SummaryPages"], builders["MethodsPage"]
     path = tmp_path / "lot.pdf"
     n = lampcalc.write_report(path, two_lamps, pages=sorted([methods, LotPage(), summary], key=lambda b: b.order))
     pages = pdf_pages(path)

@@ -86,7 +86,7 @@ def test_claims_in_words_on_the_lamp_page(demo_report):
     assert "R9 ≥ 20" in page and "meets" in page
     assert "efficacy_lm_per_W" not in page and "ansi_cct_K" not in page
     unclaimed = _page_of(pages, "QF-RGB-5600")
-    assert "The claims file makes no claims for this lamp." in unclaimed
+    assert "No claims of this lamp were checked." in unclaimed
 
 
 def test_lamp_page_quotes_absolute_quantities_where_the_data_allow(demo_report, demo_check):

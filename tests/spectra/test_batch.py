@@ -45,3 +45,16 @@ def test_interpolation_recorded_per_lamp_through_joins_and_slices():
     assert joined[[2, 0]].interpolation == ("integrated", "sprague")
     assert joined.on_grid("linear") is joined  # already on the grid: resampled once, never twice
     assert _batch([3000.0]).interpolation == ("",)
+
+
+def test_fine_narrow_lines_are_integrated_without_a_false_undershoot():
+    # 0.1 nm data of lines 0.2 nm wide (sigma): integration of non-negative data cannot go below zero
+    # (its rounding must not raise the Sprague flag). Internal property, no published source.
+    wl = np.round(np.arange(380.0, 780.01, 0.1), 4)
+    lines = sum(a * np.exp(-0.5 * ((wl - c) / 0.2) ** 2) for a, c in [(1.0, 436.03), (1.5, 546.07), (0.8, 611.3)])
+    on_grid = SpectralBatch(wl, lines, names=["lines"]).on_grid()
+    assert on_grid.interpolation == ("integrated",)
+    assert on_grid.values.min() >= 0.0
+    assert "interpolation_undershoot" not in on_grid.flags[0]
+    # every watt counts once: the sum on the 1 nm grid equals the trapezoid integral of the data
+    np.testing.assert_allclose(on_grid.values.sum(), np.trapezoid(lines, wl), rtol=1e-12)

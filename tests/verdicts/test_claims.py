@@ -162,3 +162,4 @@ def test_claims_file_in_the_spectra_folder_is_not_a_spectrum(run, tmp_path):
     result = run("check", "-r", tmp_path, "--claims", claims)
     assert result.exit_code == 0, result.output
     assert "claims.csv" not in result.stderr
+
