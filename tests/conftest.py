@@ -129,6 +129,8 @@ def invented_ratings(xy, *, seed=0, **columns):
         "sp_ratio": rng.normal(1.3, 0.01, n),
         "melanopic_der": rng.normal(0.42, 0.004, n),
         "melanopic_edi_lx": nan,
+        "bin_set": ("ANSI C78.377-2017 nominal CCT quadrangles",) * n,  # the shipped set's name (data/sets)
+        "bin": (None,) * n,
         "flags": ((),) * n,
     }
     cols.update(columns)

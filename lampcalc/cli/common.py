@@ -179,7 +179,8 @@ def set_options(fn):
         [
             click.option(
                 "--bins", type=click.Path(exists=True, dir_okay=False), default=None, metavar="FILE",
-                help="Bin set file (docs/standard-sets.md): the bins of the bin columns and of nominal-CCT claims.",
+                help="Bin set file (docs/standard-sets.md): the bins of the bin columns, of nominal-CCT claims and of a "
+                "lot's counts.",
             ),
             click.option(
                 "--ellipses", type=click.Path(exists=True, dir_okay=False), default=None, metavar="FILE",
@@ -271,11 +272,14 @@ def read_report_options(report_out, report_info, paper):
     return read_report_info(report_info)
 
 
-def write_report_file(path, ratings, verdicts=None, shown_as=None, report_info=None, paper="a4"):
-    """Write the PDF report to ``path`` (told as ``shown_as``, the final name, when ``path`` is temporary)."""
+def write_report_file(path, ratings, verdicts=None, shown_as=None, report_info=None, paper="a4", **data):
+    """Write the PDF report to ``path`` (told as ``shown_as``, the final name, when ``path`` is temporary).
+
+    ``data``: the report's title and its lot, colour over angle or comparison (:class:`~lampcalc.report.document.Report`).
+    """
     from ..report.document import Report
 
-    report = Report(ratings, verdicts, info=report_info, paper=paper)
+    report = Report(ratings, verdicts, info=report_info, paper=paper, **data)
     if sys.stderr.isatty():
         with click.progressbar(length=report.n_pages, label="writing report", file=sys.stderr) as bar:
             pages = report.write(path, progress=bar.update)

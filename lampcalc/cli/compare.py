@@ -7,14 +7,29 @@ import click
 
 from ..io.formats import SPECTRUM_SUFFIXES
 from ..report.caution import CAUTION
-from .common import Failure, collect_files, fail_on_input_errors, rate_batches, read_some, spectrum_options, write_text
+from .common import (
+    Failure,
+    collect_files,
+    fail_on_input_errors,
+    rate_batches,
+    read_report_options,
+    read_some,
+    report_options,
+    spectrum_options,
+)
+from .outputs import prepare_outputs, writable, write_documents
 from .uncertainty import decision_options, rule_from_options, uncertainty_option
 
 
-def _side(path, recursive, reading, what, model=None, stream=0):
+def side_files(path, recursive, what):
+    """The spectrum files of one side (a file, or with -r a folder); a Failure when there is none."""
     files = collect_files([path], recursive)
     if not files:
         raise Failure(f"{path}: no {what} spectrum files found (" + ", ".join(SPECTRUM_SUFFIXES) + ")")
+    return files
+
+
+def _side(files, reading, model=None, stream=0):
     batches, errors = read_some(files, as_read=model is not None, **reading)
     if model is None:
         return rate_batches(batches), errors
@@ -33,6 +48,15 @@ def figure_paths(path, names):
     return [path.with_name(f"{path.stem}_{s}{path.suffix}") for s in safe]
 
 
+def figure_file(path):
+    """The path of ``--figure``, its suffix and folder checked before the work."""
+    from ..plots.style import FORMATS
+
+    if Path(path).suffix.lower() not in FORMATS:
+        raise Failure(f"{path}: --figure writes {', '.join(FORMATS)} files; give the name one of these suffixes")
+    return writable(path, "--figure")
+
+
 def write_comparison_figures(path, reference, test, comparison):
     from ..plots.comparison import comparison_figure
     from ..plots.style import figure_style, save_figure
@@ -44,24 +68,23 @@ def write_comparison_figures(path, reference, test, comparison):
             click.echo(f"wrote {out}", err=True)
 
 
-def compare_and_write(reference_path, test_path, *, limit=None, json_out=None, csv_out=None, figure_out=None,
-                      recursive=False, uncertainty=None, rule=None, **reading):
+def compare_and_write(reference_files, test_files, *, limit=None, outputs=None, report_options=None, figure_out=None,
+                      uncertainty=None, rule=None, **reading):
     """Read and rate both sides, compare, print and write. Returns the exit status (0, 1 or 2).
 
+    ``outputs``: from :func:`~lampcalc.cli.outputs.prepare_outputs` (json, csv, xlsx, report), written together;
     ``uncertainty``: a measurement-model file; both sides are then drawn independently and every
     difference gets its uncertainty, the limit a decision under ``rule`` (a DecisionRule).
     """
-    import json
-
-    from ..io.serialise import csv_text, plain, records
     from ..verdicts.comparison import compare_ratings
     from .compare_printouts import pair_detail, pairs_table
+    from .set_outputs import comparison_csv, comparison_document, comparison_sheets, json_text
 
     from .uncertainty import comparison_text, load_model
 
     model = load_model(uncertainty)
-    reference, errors = _side(reference_path, recursive, reading, "reference", model, stream=1)
-    test, more = _side(test_path, recursive, reading, "test", model, stream=2)
+    reference, errors = _side(reference_files, reading, model, stream=1)
+    test, more = _side(test_files, reading, model, stream=2)
     errors += more
     comparison = compare_ratings(reference, test, limit_delta_uv_prime=limit)
     click.echo(pairs_table(comparison))
@@ -72,14 +95,12 @@ def compare_and_write(reference_path, test_path, *, limit=None, json_out=None, c
 
         comparison = comparison_uncertainty(comparison, reference, test, rule)
         click.echo("\n" + comparison_text(comparison, model))
-    rows = records(comparison["pairs"])
-    if json_out:
-        doc = {"pairs": rows, **plain({k: v for k, v in comparison.items() if k != "pairs"})}
-        write_text(json_out, json.dumps(doc, indent=1, allow_nan=False) + "\n")
-        click.echo(f"wrote {json_out}", err=True)
-    if csv_out:
-        write_text(csv_out, csv_text(rows))
-        click.echo(f"wrote {csv_out}", err=True)
+    write_documents(
+        outputs or {}, json=lambda: json_text(comparison_document(comparison)), csv=lambda: comparison_csv(comparison),
+        sheets=lambda: comparison_sheets(comparison),
+        report=lambda: {"ratings": None, "comparison": (reference, test, comparison), "title": "Comparison of spectra",
+                        **(report_options or {})},
+    )
     if figure_out:
         write_comparison_figures(figure_out, reference, test, comparison)
     click.echo("\n" + CAUTION)
@@ -96,20 +117,30 @@ def compare_and_write(reference_path, test_path, *, limit=None, json_out=None, c
               help="Your limit on the colour shift Δu'v' between test and reference.")
 @click.option("--json", "json_out", type=click.Path(dir_okay=False), help="Write every pair to this JSON file.")
 @click.option("--csv", "csv_out", type=click.Path(dir_okay=False), help="Write one row per pair to this CSV file.")
+@click.option("--xlsx", "xlsx_out", type=click.Path(dir_okay=False),
+              help="Write every pair (lists in columns of their own) and the flags to this Excel workbook.")
+@click.option("--report", "report_out", type=click.Path(dir_okay=False),
+              help="Write a PDF report: every pair, then every lamp of both sides.")
 @click.option("--figure", "figure_out", type=click.Path(dir_okay=False),
               help="Draw both spectra and their ratio (.png, .svg or .pdf; one file per pair).")
+@report_options
 @uncertainty_option
 @decision_options
 @spectrum_options
 @fail_on_input_errors
-def compare(reference, test, limit, json_out, csv_out, figure_out, recursive, uncertainty, decision_rule, guard_band_k,
-            **reading):
+def compare(reference, test, limit, json_out, csv_out, xlsx_out, report_out, figure_out, report_info, paper, recursive,
+            uncertainty, decision_rule, guard_band_k, **reading):
     """Compare TEST spectra with REFERENCE spectra: colour shift Δu'v' and every rating's difference.
 
     REFERENCE and TEST are files (or, with -r, folders). One spectrum on each side is one
     pair; otherwise lamps are paired by name. Exit status 0 when every pair is within the
     limit (or no limit is given), 1 when one is not, 2 for bad input.
     """
+    info = read_report_options(report_out, report_info, paper)
     rule = rule_from_options(uncertainty, decision_rule, guard_band_k)
-    sys.exit(compare_and_write(reference, test, limit=limit, json_out=json_out, csv_out=csv_out,
-                               figure_out=figure_out, recursive=recursive, uncertainty=uncertainty, rule=rule, **reading))
+    sides = side_files(reference, recursive, "reference"), side_files(test, recursive, "test")
+    inputs = sides[0] + sides[1] + ([uncertainty] if uncertainty else [])
+    outputs = prepare_outputs(inputs, json=json_out, csv=csv_out, xlsx=xlsx_out, report=report_out)
+    figure = figure_file(figure_out) if figure_out else None
+    sys.exit(compare_and_write(*sides, limit=limit, outputs=outputs, figure_out=figure, uncertainty=uncertainty,
+                               rule=rule, report_options={"report_info": info, "paper": paper}, **reading))

@@ -91,19 +91,39 @@ def demo_figures(ratings, out):
 
 
 def demo_sets(out):
-    """A lot with its claims, one source over angle, a sample against its data sheet. Returns 2 on bad input."""
-    from ..io.demo_data import demo_folder, demo_lot_claims, demo_set
+    """A lot with its claims, one source over angle, a sample against its data sheet, each with its report.
+
+    Returns 2 on bad input.
+    """
+    import dataclasses
+
+    from ..io.demo_data import demo_folder, demo_lot_claims, demo_report_info, demo_set
+    from ..report.report_info import read_report_info
     from .compare import compare_and_write
     from .lot import lot_and_write
 
+    info = read_report_info(demo_report_info())
+
+    def report_options(number, title):
+        return {"report_info": dataclasses.replace(info, report_number=number, title=title)}
+
     click.echo("\nA delivery of 12 lamps QF-SPOT-3000 (spectra_demo/lot/), with the supplier's claims on it:\n")
-    statuses = [lot_and_write(demo_set("lot"), claims_path=demo_lot_claims(), json_out=out / "lot.json",
-                              csv_out=out / "lot.csv", figures_dir=out / "lot")]
+    lot = demo_set("lot")
+    outputs = prepare_outputs([*lot, demo_lot_claims()], json=out / "lot.json", csv=out / "lot.csv",
+                              xlsx=out / "lot.xlsx", report=out / "lot_report.pdf")
+    statuses = [lot_and_write(lot, claims_path=demo_lot_claims(), outputs=outputs, figures_dir=out / "lot",
+                              report_options=report_options("QF-DEMO-002", "Quillfen Lighting: a delivery of QF-SPOT-3000"))]
     click.echo("\nOne downlight QF-DL-4000 from 0 to 80° (spectra_demo/angles/), against a limit of 0.004 Δu'v':\n")
-    statuses.append(lot_and_write(demo_set("angles"), limit=0.004, json_out=out / "angles.json", figures_dir=out / "angles"))
+    angles = demo_set("angles")
+    outputs = prepare_outputs(angles, json=out / "angles.json", report=out / "angles_report.pdf")
+    statuses.append(lot_and_write(angles, limit=0.004, outputs=outputs, figures_dir=out / "angles",
+                                  report_options=report_options("QF-DEMO-003", "Quillfen Lighting: QF-DL-4000 over angle")))
     click.echo("\nA lamp QF-A60-2700-R9 of a delivery against its data-sheet spectrum (spectra_demo/datasheet/), "
                "limit 0.003 Δu'v':\n")
     folder = demo_folder() / "datasheet"
-    statuses.append(compare_and_write(folder / "quillfen_a60_2700_r9_datasheet.csv", folder / "quillfen_a60_2700_r9_sample.csv",
-                                      limit=0.003, json_out=out / "compare.json", figure_out=out / "compare_datasheet.png"))
+    sides = [folder / "quillfen_a60_2700_r9_datasheet.csv"], [folder / "quillfen_a60_2700_r9_sample.csv"]
+    outputs = prepare_outputs(sides[0] + sides[1], json=out / "compare.json", report=out / "compare_report.pdf")
+    statuses.append(compare_and_write(*sides, limit=0.003, outputs=outputs, figure_out=out / "compare_datasheet.png",
+                                      report_options=report_options("QF-DEMO-004",
+                                                                    "Quillfen Lighting: QF-A60-2700-R9 against its data sheet")))
     return 2 if 2 in statuses else 0

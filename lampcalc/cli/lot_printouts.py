@@ -1,10 +1,11 @@
 """What ``lampcalc lot`` shows: the lot's colour, its ratings' statistics, colour over angle, lot claims."""
 
 from ..rating.flags import explain
+from ..standards.ansi_bins import ansi_bin_set
 from ..verdicts.lot import DOUBT_SOURCE, LOT_RATINGS
-from ..verdicts.lot_claims import STEPS_NOTES
+from ..verdicts.lot_wording import limit_line, word_lot_checks
+from ..verdicts.wording import QUALIFIED, lamp_line
 from .common import flagged, fmt
-from .printouts import RESULT
 from .text_table import format_table
 
 #: Rating -> (label, unit, format) in the lot's and the comparison's tables.
@@ -64,8 +65,7 @@ def lot_text(lot, over_angle=False):
          f"Duv {fmt(s['mean_point_duv'], '+.4f')}"],
     ]
     if s["steps_centre_chosen"] != "none":
-        method = ("IEC 60081 ellipses (metric not confirmed, see docs/claims.md)" if s["steps_method"] == "ellipse"
-                  else "CIE TN 001 u'v' circles (step not confirmed, see docs/claims.md)")
+        method = s["steps_set"] + ("" if s["steps_metric_confirmed"] else " (not confirmed, see docs/claims.md)")
         rows.append(["centre", f"{s['steps_centre_nominal_cct_K']:g} K ({s['steps_centre_chosen']}), "
                      f"{s['steps_centre'].upper()} centre x {s['steps_centre_x']:.5f}, y {s['steps_centre_y']:.5f}; {method}"])
         shares = "  ".join(f"{k}: {s[f'within_{k}_steps_percent']:.0f} %" for k in range(1, 8))
@@ -79,6 +79,10 @@ def lot_text(lot, over_angle=False):
     if s["ansi_bins_none_count"]:
         bins.append(f"none: {s['ansi_bins_none_count']}")
     rows.append(["ANSI categories", ", ".join(bins) + " (ANSI C78.377-2017)"])
+    if s["bin_set"] != ansi_bin_set().name:  # a user's bin set
+        held = [f"{b}: {c}" for b, c in zip(s["bins_name"], s["bins_count"])]
+        held += [f"none: {s['bins_none_count']}"] if s["bins_none_count"] else []
+        rows.append(["bins", f"{', '.join(held)} ({s['bin_set']})"])
     width = max(len(r[0]) for r in rows)
     lines += [f"  {label.ljust(width)}  {text}" for label, text in rows]
     if s["flags"]:
@@ -127,27 +131,18 @@ def angle_text(angles):
     head = (f"Colour over angle: {a['n_angles']} spectra, {a['angle_min_deg']:g}-{a['angle_max_deg']:g}°; "
             f"mean point u' {a['angle_mean_u_prime']:.5f}, v' {a['angle_mean_v_prime']:.5f}, {weighting}")
     table = format_table(["angle °", "spectrum", "u'", "v'", "CCT K", "Duv", "Δu'v' from mean"], rows, "rlrrrrr")
-    last = f"largest Δu'v' from the mean point: {a['max_delta_uv_prime_over_angle']:.5f} at {a['angle_of_max_delta_uv_prime_deg']:g}°"
-    if a["limit_delta_uv_prime"] is not None:
-        last += (f"; your limit {a['limit_delta_uv_prime']:g}: {RESULT[a['angle_pass']]} "
-                 f"(margin {a['angle_margin_delta_uv_prime']:+.5f})")
-    else:
-        last += "; no limit given (--limit-delta-uv-prime), so no verdict"
+    last = "largest Δu'v' from the mean point: " + limit_line(
+        a["max_delta_uv_prime_over_angle"], a["limit_delta_uv_prime"], a["angle_pass"],
+        where=f"at {a['angle_of_max_delta_uv_prime_deg']:g}°")
     return "\n".join([head, table, last])
 
 
 def lot_claims_text(verdicts):
-    """The lot claims' verdicts: one row per claim, with the supplier's words; the note on the metric once, below."""
-    rows, footnotes = [], set()
-    for c in verdicts.checks:
-        margin = "-" if c["margin"] is None else f"{c['margin']:+.4g}"
-        note = c["note"]
-        for text in STEPS_NOTES.values():
-            if text in note:
-                note, footnotes = note.replace(text, "(*)"), footnotes | {text}
-        rows.append([c["text"] or "-", c["claim"], fmt(c["measured"], ".4g"), margin, RESULT[c["pass"]], note])
+    """The lot claims' verdicts in the shared words: one row per claim, with the supplier's words; what qualifies a verdict once, below."""
+    words, notes = word_lot_checks(verdicts)
+    rows = [[c["text"] or "-", w.claim, w.measured, w.margin, w.verdict_text, w.why] for c, w in zip(verdicts.checks, words)]
     head = "Lot claims" + (f" of {verdicts.product}" if verdicts.product else "")
-    table = format_table(["the supplier says", "claim", "measured", "margin", "result", "note"], rows, "llrrll")
-    lines = [f"{head}:", table, verdicts.summary()]
-    lines += [f"(*) {text[0].upper()}{text[1:]}." for text in sorted(footnotes)]
+    table = format_table(["the supplier says", "claim", "measured", "margin", "verdict", "why"], rows, "llrrll")
+    lines = [f"{head}: the lot {lamp_line({'checks': verdicts.checks})}", table, verdicts.summary()]
+    lines += [f"{QUALIFIED} qualified: {text[0].upper()}{text[1:]}." for text in notes]
     return "\n".join(lines)

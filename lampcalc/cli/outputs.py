@@ -75,29 +75,52 @@ def write_outputs(ratings, verdicts, outputs, report_options=None):
     workbook holds the ratings, their flags and the verdicts; the report both
     (``report_options``: its ``report_info`` and ``paper``).
     """
+    from ..rating.wide_columns import ratings_sheets
+
+    table = verdicts or ratings
+
+    def sheets():
+        out = ratings_sheets(ratings)
+        if verdicts is not None:
+            header, rows = verdicts.table()
+            out.append(("checks", header, rows))
+        return out
+
+    write_documents(outputs, json=table.to_json, csv=table.to_csv, sheets=sheets,
+                    report=lambda: {"ratings": ratings, "verdicts": verdicts, **(report_options or {})})
+
+
+def write_documents(outputs, *, json=None, csv=None, sheets=None, report=None):
+    """Write the outputs of one run together: all new, or, on any error, all as they were.
+
+    Each output is made by a function, called only when that output was asked for:
+    ``json`` and ``csv`` give the text; ``sheets`` the workbook's sheets, ``[(title,
+    header, rows), ...]`` (a sheet of notes with the caution follows them); ``report`` the
+    keywords of :func:`~lampcalc.cli.common.write_report_file` (``ratings``, ``verdicts``,
+    ``report_info``, ``paper``, and the report's data: ``lot``, ``angles``, ``comparison`` …).
+
+    Raises
+    ------
+    Failure
+        When a file cannot be written; none of the outputs is then changed.
+    """
     from ..io.atomic import replaced_together
     from ..io.workbook import write_workbook
-    from ..rating.wide_columns import ratings_sheets
     from ..report.caution import CAUTION
 
     if not outputs:
         return
-    table = verdicts or ratings
     try:
         with replaced_together(outputs.values()) as tmp:
             for kind, path in outputs.items():
                 if kind in ("json", "csv"):
                     with open(tmp[path], "w", encoding="utf-8", newline="") as handle:
-                        handle.write(table.to_json() if kind == "json" else table.to_csv())
+                        handle.write((json if kind == "json" else csv)())
                 elif kind == "xlsx":
-                    sheets = ratings_sheets(ratings)
-                    if verdicts is not None:
-                        header, rows = verdicts.table()
-                        sheets.append(("checks", header, rows))
-                    sheets.append(("notes", ["note"], [[CAUTION], ["Keys and units: docs/output-fields.md"]]))
-                    write_workbook(tmp[path], sheets)
+                    notes = ("notes", ["note"], [[CAUTION], ["Keys and units: docs/output-fields.md"]])
+                    write_workbook(tmp[path], [*sheets(), notes])
                 else:
-                    write_report_file(tmp[path], ratings, verdicts, shown_as=path, **(report_options or {}))
+                    write_report_file(tmp[path], shown_as=path, **report())
     except OSError as err:
         raise Failure(f"cannot write the outputs ({err.strerror or err}: {err.filename or ''}); none was changed") from None
     for kind, path in outputs.items():

@@ -86,10 +86,6 @@ def legend_of(flags, counts=None):
     return "\n".join(f"  {flag}{count(flag)}: {explain(flag)}" for flag in sorted(set(flags)))
 
 
-#: A result in the lot and comparison tables (lot_printouts, compare_printouts).
-RESULT = {True: "holds", False: "FAILS", None: "not shown"}
-
-
 def verdict_text(verdicts, ratings=None):
     """The verdict table of every claimed lamp, in the words the report uses (verdicts.wording)."""
     from ..verdicts.wording import QUALIFIED, lamp_line, pair_verdicts, word_checks

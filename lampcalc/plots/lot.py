@@ -30,12 +30,21 @@ def _rings(lot):
     return tuple(range(1, int(min(MAX_RINGS, max(3, math.ceil(largest)))) + 1))
 
 
+def _steps_set(lot):
+    """The ellipse set the lot's steps were counted with: the set itself, else the shipped one it names."""
+    steps = lot.get("steps_ellipse_set") or lot["steps_method"]
+    if steps == "set":
+        raise ValueError("the lot's steps were counted with a user's ellipse set: keep it as 'steps_ellipse_set'")
+    return steps
+
+
 def draw_lot_diagram(ax, lot, *, space="xy", title=None):
     """The lot's samples, mean point and 95 % covariance ellipse on a zoomed chromaticity diagram.
 
     Drawn over the diagram (spectrum and Planckian loci, ANSI C78.377-2017 quadrangles):
     each sample, the mean point, the covariance ellipse (``lot["ellipse_probability"]``),
-    and the centre the steps count from with its rings of 1, 2, … steps.
+    and the centre the steps count from with its rings of 1, 2, … steps of the ellipse set
+    the steps were counted with (``lot["steps_ellipse_set"]``, a user's set included).
 
     Parameters
     ----------
@@ -62,8 +71,9 @@ def draw_lot_diagram(ax, lot, *, space="xy", title=None):
                               title=title or f"Lot of {lot['n_samples']} sample{'s' if lot['n_samples'] != 1 else ''}: "
                               f"{SPACES[space][2]}")
     if has_centre:
+        steps = _steps_set(lot)
         for n in _rings(lot):
-            ring = to_space(steps_ring_xy(centre, lot["steps_centre_nominal_cct_K"], n, lot["steps_method"]))
+            ring = to_space(steps_ring_xy(centre, lot["steps_centre_nominal_cct_K"], n, steps))
             ax.plot(*ring.T, color=ACCENT, lw=0.45, alpha=0.8, gid=f"steps_ring:{n}",
                     label=f"1–{n} steps around the centre" if n == _rings(lot)[-1] else None)
             # label each ring where it crosses the way from the centre towards the lot

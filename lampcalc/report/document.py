@@ -7,14 +7,20 @@ A report is an ordered list of *page builders*. Each builder is an object with
 ``count(report)``
     how many pages it will draw for a :class:`Report` (so every page can say "page N of M");
 ``draw(report, sheet)``
-    draws exactly that many pages, each inside ``with sheet.page(key, title, subtitle) as page:``.
+    draws exactly that many pages, each inside ``with sheet.page(key, title, subtitle) as page:``;
+``overview(report)`` (optional)
+    the verdict of its part in a few sentences, ``[(text, alarm), ...]``, which the summary
+    prints on the first page (``alarm``: a verdict not met or not evaluated, printed in the
+    lamp colour).
 
 The builders are found, not listed: every module of this package whose name ends in
-``_pages`` or ``_page`` and that defines ``PAGES`` (a builder) takes part. To add pages — a
-lot's statistics, colour over angle, a comparison of two spectra, uncertainty intervals —
+``_pages`` or ``_page`` and that defines ``PAGES`` (a builder) takes part: the summary (100),
+a lot (150), colour over angle (160), a comparison (170), the measurement uncertainty (200),
+the lamps (300), the methods (900). The data a builder draws come with the :class:`Report`
+(``lot=``, ``angles=``, ``comparison=``); without them it counts no page. To add pages,
 write ``lampcalc/report/<name>_pages.py`` with ``PAGES = YourBuilder()`` and an ``order``
-between its neighbours (200 puts it after the summary); no other module changes. A caller
-can also pass its own list: ``write_report(..., pages=[...])``.
+between its neighbours; no other module changes. A caller can also pass its own list:
+``write_report(..., pages=[...])``.
 
 A page is drawn in millimetres from the paper's top-left corner (:class:`Page`). The
 :class:`Sheet` keeps one matplotlib figure per page ``key`` and reuses it: axes and fixed
@@ -45,6 +51,11 @@ class Paper:
     width_mm: float
     height_mm: float
 
+    @property
+    def content_mm(self):
+        """(width, height) of a page's content: inside the margins, below the title, above the footer, mm."""
+        return self.width_mm - 2 * MARGIN_MM, self.height_mm - 2 * MARGIN_MM - HEADER_MM - FOOTER_MM
+
 
 #: Paper sizes by the name ``--paper`` takes.
 PAPERS = {"a4": Paper("A4", 210.0, 297.0), "letter": Paper("US Letter", 215.9, 279.4)}
@@ -71,19 +82,42 @@ class Report:
 
     Parameters
     ----------
-    ratings : Ratings
+    ratings : Ratings or None
+        The lamps of the report (every lamp gets its page); None with ``comparison``: the
+        lamps of both sides (:func:`~lampcalc.verdicts.comparison.both_sides`).
     verdicts : Verdicts, optional
     info : ReportInfo, mapping or path of a TOML file, optional
     paper : {"a4", "letter"}
     pages : sequence of page builders, optional
         Default: :func:`page_builders`.
+    lot : dict, optional
+        :func:`~lampcalc.verdicts.lot.lot_statistics` of the lamps: the lot's pages.
+    lot_verdicts : LotVerdicts, optional
+        :func:`~lampcalc.verdicts.lot_claims.check_lot_claims` of that lot.
+    angles : dict, optional
+        :func:`~lampcalc.verdicts.angles.colour_over_angle` of the lamps: the pages of colour over angle.
+    comparison : (Ratings, Ratings, dict), optional
+        The reference's and the test's ratings and :func:`~lampcalc.verdicts.comparison.compare_ratings`
+        of the two: the comparison's pages.
+
+    Each builder counts no page for the data it is not given.
     """
 
-    def __init__(self, ratings, verdicts=None, *, info=None, paper="a4", pages=None, title=None):
+    def __init__(self, ratings, verdicts=None, *, info=None, paper="a4", pages=None, title=None, lot=None,
+                 lot_verdicts=None, angles=None, comparison=None):
         from ..verdicts.wording import pair_verdicts
 
         if paper not in PAPERS:
             raise ValueError(f"unknown paper {paper!r}; choose one of {', '.join(PAPERS)}")
+        if lot_verdicts is not None and lot is None:
+            raise ValueError("lot_verdicts needs the lot they were checked against (lot=)")
+        if ratings is None:
+            if comparison is None:
+                raise ValueError("a report needs ratings (or a comparison, whose two sides it shows)")
+            from ..verdicts.comparison import both_sides
+
+            ratings = both_sides(*comparison[:2])
+        self.lot, self.lot_verdicts, self.angles, self.comparison = lot, lot_verdicts, angles, comparison
         if info is None:
             info = ReportInfo()
         elif not isinstance(info, ReportInfo):
@@ -276,7 +310,7 @@ class Page:
 
 
 def write_report(path, ratings, verdicts=None, title=None, progress=None, *, report_info=None, paper="a4",
-                 pages=None):
+                 pages=None, **data):
     """Write the PDF report for ``ratings`` (and ``verdicts`` of a claims check) to ``path``.
 
     Parameters
@@ -294,10 +328,12 @@ def write_report(path, ratings, verdicts=None, title=None, progress=None, *, rep
     paper : {"a4", "letter"}
     pages : sequence of page builders, optional
         Instead of the builders found in :mod:`lampcalc.report` (see this module's docstring).
+    **data
+        ``lot``, ``lot_verdicts``, ``angles``, ``comparison``: see :class:`Report`.
 
     Returns
     -------
     int
         The number of pages. The same inputs give the same bytes.
     """
-    return Report(ratings, verdicts, info=report_info, paper=paper, pages=pages, title=title).write(path, progress)
+    return Report(ratings, verdicts, info=report_info, paper=paper, pages=pages, title=title, **data).write(path, progress)

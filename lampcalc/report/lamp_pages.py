@@ -33,15 +33,14 @@ from ..spectra.batch import QUANTITY_UNITS
 from ..standards.ansi_bins import ansi_bin_set
 from ..verdicts.wording import INTERPOLATION_WORDS, MISSING, QUALIFIED, format_value, lamp_line, lamp_status, word_checks
 from .markers import quote
-from .tables import HEADING_MM, Cell, Column, Table, heading, key_values, key_values_height, line_mm, paragraph
+from .tables import HEADING_MM, Column, Table, heading, key_values, key_values_height, line_mm, paragraph
 from .uncertainty_pages import DECISIONS_NOTE, RATINGS_NOTE, decision_table, draws_of, rating_table, regions
+from .verdict_tables import verdict_table
 
 ALPHA_OPIC = ("s_cone", "m_cone", "l_cone", "rhodopic", "melanopic")
 _BIN_KEYS = ("rf_hue_bins", "chroma_shift_hue_bins_percent", "hue_shift_hue_bins_rad")
 SPECTRUM_MIN_MM = 54.0  # heading, plot (at least 33 mm) and caption
 SPECTRUM_MAX_MM = 90.0
-_CLAIM_COLUMNS = (("claim", 0.285, "left", False), ("measured", 0.095, "right", False), ("margin", 0.10, "right", False),
-                  ("verdict", 0.13, "left", False), ("why", 0.39, "left", False))
 CLAIMS_NOTE = (
     f"Margin: distance from the claim's limit, negative when short of it (quadrangle: from its nearest edge in (u, v)). "
     f"{QUALIFIED} qualified, see Methods."
@@ -242,19 +241,15 @@ class LampPages:
         if verdict is None:
             text = ("No claims were checked: the report was made without a claims file." if report.verdicts is None
                     else "No claims of this lamp were checked.")
+            if report.verdicts is None and report.lot_verdicts is not None:
+                text = "No claims of this sample alone were checked: the claims on the lot are on the lot's pages."
             return y + paragraph(page, sheet.left, y, text, sheet.width, size=7, color=MUTED) + 2
         status = lamp_status(verdict)
         lead = lamp_line(verdict)
         y += paragraph(page, sheet.left, y, lead[0].upper() + lead[1:] + ".", sheet.width, size=8, weight="bold",
                        color=INK if status else LAMP) + 1
         words = word_checks(verdict, record.get("flags") or ())
-        rows = []
-        for w in words:
-            look = {True: ("normal", INK), False: ("bold", LAMP), None: ("normal", MUTED)}[w.passed]
-            rows.append([w.claim, w.measured, w.margin, Cell(w.verdict_text, *look), w.why])
-        columns = [Column(h, share * sheet.width, align, wrap, MUTED if h == "why" else INK)
-                   for h, share, align, wrap in _CLAIM_COLUMNS]
-        y += Table(columns, rows, size=6.4).draw(page, sheet.left, y) + 1
+        y += verdict_table(words, sheet.width).draw(page, sheet.left, y) + 1
         return y + paragraph(page, sheet.left, y, CLAIMS_NOTE, sheet.width, size=5.8, color=MUTED) + 1.5
 
     def _flags(self, page, sheet, record, y):

@@ -1,15 +1,19 @@
-"""The methods page: each method with its edition and source, the interpolation used per lamp,
-the values no published source confirms, the cautions, and a place to sign.
+"""The methods page: each method with its edition and source (and the methods of a lot, colour
+over angle or a comparison when the report holds one), the interpolation used per lamp, the
+values no published source confirms, the cautions, and a place to sign.
 
 Written for the client: it states what was done and on what authority, and says plainly which
 shipped values could not be confirmed against a published text (verdicts resting on them are
 marked in the claims tables). When the text does not fit one page it continues on the next.
 """
 
+import math
+
 from .. import __version__
 from ..plots.hue import BAR_SCALES
 from ..plots.style import INK, LAMP, MUTED
 from ..standards.ansi_bins import EDITION
+from ..verdicts.comparison import RATIO_FLOOR
 from ..verdicts.wording import INTERPOLATION_WORDS, MISSING, QUALIFIED
 from .caution import CAUTION
 from .tables import headed_pages, headed_paragraph, line_mm
@@ -68,6 +72,32 @@ METHODS = [
 ]
 
 
+#: Methods of the parts a report may hold, by the Report's attribute.
+PART_METHODS = {
+    "lot": ("Lots", "The statistics of a rating are over the samples that have it: the mean; the sample standard "
+            "deviation, divisor n − 1 (ddof = 1); the lowest and highest; the 5th and 95th percentiles, interpolated "
+            "linearly between the sorted values at position p·(n − 1) (NumPy's default method, definition 7 of Hyndman "
+            "and Fan, 1996). The mean point is the mean of the samples' x, y; the mean u′, v′ the means of their u′, v′. "
+            f"The covariance ellipse (p − m)ᵀ S⁻¹ (p − m) = χ²₂(0.95) = −2·ln 0.05 = {-2 * math.log(0.05):.3f}, with S the "
+            "sample covariance of the samples' x, y, holds 95 % of a two-dimensional normal distribution of that "
+            "covariance. It describes the samples measured: for a small lot S is itself uncertain, so the ellipse is no "
+            "tolerance region for the production and no promise for the next lamp; it needs three samples or more. "
+            "Steps count from the lot's centre as for single lamps; a share within n steps counts the samples at n steps "
+            "or fewer. The verdicts on a lot's claims concern the samples supplied, not the production."),
+    "angles": ("Colour over angle", "Δu′v′ of each angle from the mean point in the CIE 1976 u′v′ diagram. The mean "
+               "point weights each angle's u′, v′ by its luminous quantity Km·Σ V(λ)·S(λ)·Δλ (illuminance, luminous "
+               "flux or luminance) when every spectrum is absolute in the same quantity, else every angle alike; the "
+               "angles count as measured, with no solid-angle (zonal) weighting. No limit is applied by default: the "
+               "verdict is against the limit given for the report."),
+    "comparison": ("Comparisons", "Δu′v′: the distance between the test's and the reference's u′, v′ in the CIE 1976 "
+                   "UCS diagram; every other difference is test − reference. The figure scales both spectra to the same "
+                   "Σ V(λ)·S(λ), the reference's peak at 1; their ratio is drawn only where the reference is at least "
+                   f"{100 * RATIO_FLOOR:g} % of its peak (below, a ratio of small values is noise) and both spectra were "
+                   "measured. The luminous ratio needs both spectra absolute in the same quantity. No limit is applied "
+                   "by default: the verdict is against the limit given for the report."),
+}
+
+
 def _unconfirmed_text(records):
     """The shipped values no published source in hand confirms, from the sets' own marks; and the user's sets."""
     from ..standards.ansi_bins import ansi_bin_set
@@ -115,6 +145,7 @@ def _cautions():
 def _blocks(report):
     return [
         *[(h, t, INK) for h, t in METHODS],
+        *[(*PART_METHODS[part], INK) for part in PART_METHODS if getattr(report, part, None) is not None],
         ("Interpolation used", _interpolation_text(report.records), INK),
         ("Values not confirmed by a published source", _unconfirmed_text(report.records), INK),
         ("Cautions", _cautions(), LAMP),

@@ -2,7 +2,7 @@
 
 The first page opens with the report information and the verdict of the claims check
 (lamps that meet every claim, that do not meet one or more, whose claims could not all be
-evaluated). Then one row per lamp: its key numbers with validity markers, its flags as
+evaluated), and of the lot, colour over angle or comparison the report holds. Then one row per lamp: its key numbers with validity markers, its flags as
 letters and its claims in a few words, with a legend in words under the table. The rest
 of the page is a white-region chromaticity diagram of the lamps in the table, marked by
 their row numbers. Lamps that do not fit flow onto further summary pages, each with its
@@ -56,10 +56,19 @@ def _row(number, record, verdict, letters):
 
 
 def _overview(report):
-    """The verdict in a sentence (bold) and the counts behind it."""
+    """The verdict in a sentence (bold), the counts behind it, and whether it is an alarm.
+
+    The verdicts of the other parts of the report (a lot, colour over angle, a comparison)
+    come from their builders' ``overview``.
+    """
     n = len(report.records)
+    parts = [item for b in report.builders if hasattr(b, "overview") for item in b.overview(report)]
+    alarm = any(a for _, a in parts)
     if report.verdicts is None:
-        return f"{n} lamp{'s' if n != 1 else ''} rated; no claims were checked.", ""
+        rated = f"{n} lamp{'s' if n != 1 else ''} rated; no claims were checked"
+        if parts:
+            return " ".join(t for t, _ in parts), rated.replace("no claims", "no claims of single lamps") + ".", alarm
+        return rated + ".", "", alarm
     status = [lamp_status(v) for v in report.verdicts.lamps]
     claimed, failed, open_ = len(status), status.count(False), status.count(None)
     if failed:
@@ -68,7 +77,7 @@ def _overview(report):
         lead = f"No claim is shown to fail, but {open_} of {claimed} lamps have claims that could not be evaluated."
     else:
         lead = f"All {claimed} lamps with claims meet every claim."
-    return lead, count_line(report.verdicts) + "."
+    return " ".join([lead, *(t for t, _ in parts)]), count_line(report.verdicts) + ".", alarm or bool(failed or open_)
 
 
 #: The notes of the report information are printed up to this many lines.
@@ -124,7 +133,7 @@ class SummaryPages:
         half = width / 2 - 4
         info = max((key_values_height(column, half - 24) for column in _info_columns(report.info.items())), default=0)
         notes = paragraph_height(_notes(report, width), width, size=7) + 2 if report.info.notes else 0.0
-        lead, counts = _overview(report)
+        lead, counts, _ = _overview(report)
         return (info + 3 if info else 0) + notes + paragraph_height(lead, width, size=8.5, weight="bold") + 1 + (
             paragraph_height(counts, width, size=7) if counts else 0) + 3
 
@@ -165,9 +174,8 @@ class SummaryPages:
         y += height + (3 if height else 0)
         if report.info.notes:
             y += paragraph(page, sheet.left, y, _notes(report, sheet.width), sheet.width, size=7) + 2
-        status = [lamp_status(v) for v in report.lamp_verdicts if v is not None]
-        lead, counts = _overview(report)
-        colour = LAMP if False in status or None in status else INK
+        lead, counts, alarm = _overview(report)
+        colour = LAMP if alarm else INK
         y += paragraph(page, sheet.left, y, lead, sheet.width, size=8.5, weight="bold", color=colour) + 1
         if counts:
             y += paragraph(page, sheet.left, y, counts, sheet.width, size=7)

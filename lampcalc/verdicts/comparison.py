@@ -14,6 +14,7 @@ the comparison figure.
 import numpy as np
 
 from ..errors import InputError
+from ..spectra.batch import SpectralBatch
 from ..spectra.resampling import GRID_NM
 from ..spectra.tables import luminous_efficiency
 from .lot import rating_values
@@ -126,6 +127,36 @@ def compare_ratings(reference, test, *, limit_delta_uv_prime=None):
         "flags": tuple(() if np.isfinite(r) else ("luminous_ratio_needs_absolute_spectra",) for r in ratio),
     }
     return {"pairs": cols, "unmatched_reference": lone_reference, "unmatched_test": lone_test}
+
+
+def _joined_extra(key, a, b):
+    """One extra of both sides as one (spectra, TM-30 bin means, Monte Carlo draws); None when it cannot be joined."""
+    if isinstance(a, SpectralBatch):
+        return SpectralBatch.concatenate([a, b])
+    if isinstance(a, np.ndarray):
+        return np.concatenate([a, b])
+    if key == "uncertainty":  # the same model drew both sides: the lamps' draws one after the other
+        import dataclasses
+
+        kept = {k: np.concatenate([a.kept[k], b.kept[k]]) for k in (a.kept or {}) if k in (b.kept or {})}
+        return dataclasses.replace(a, xy=np.concatenate([a.xy, b.xy]), kept=kept)
+    return None
+
+
+def both_sides(reference, test):
+    """The ratings of both sides as one table: the reference's lamps, then the test's.
+
+    Each name is followed by its side ("… (reference)", "… (test)"): sides paired by name
+    carry the same names. For a report that shows every lamp of a comparison.
+    """
+    from ..rating.ratings import Ratings
+    from ..rating.streaming import join_ratings
+
+    columns = dict(join_ratings([Ratings(reference.columns), Ratings(test.columns)]).columns)
+    columns["name"] = tuple(f"{n} (reference)" for n in reference["name"]) + tuple(f"{n} (test)" for n in test["name"])
+    extras = {key: _joined_extra(key, reference.extras[key], test.extras[key])
+              for key in reference.extras if key in test.extras}
+    return Ratings(columns, {key: value for key, value in extras.items() if value is not None})
 
 
 def normalised_spectra(reference_values, test_values, reference_range_nm=None, test_range_nm=None):

@@ -12,11 +12,15 @@ returns a flat dict whose keys are documented in ``docs/output-fields.md`` (``la
   x, y and in colour-consistency steps;
 * the steps of each sample from the lot's centre (a claimed nominal CCT, else the ANSI
   C78.377 category nearest the mean point) and the share within 1 … 7 steps;
-* the largest Δu′v′ between two samples, the largest from the mean point, and how many
-  samples fall in each ANSI C78.377-2017 category;
+* the largest Δu′v′ between two samples, the largest from the mean point, how many
+  samples fall in each ANSI C78.377-2017 category, and in each bin of the bin set the
+  samples were rated with (the ANSI quadrangles, or a user's set);
 * ``flags``: conditions of the whole lot, in words in :mod:`lampcalc.rating.flags`.
 
-The per-sample values are under the key ``samples`` (a dict of columns).
+The per-sample values are under the key ``samples`` (a dict of columns), and the ellipse set
+the steps were counted with under ``steps_ellipse_set``: :data:`NOT_SUMMARY`, the keys that
+are not numbers or words of the summary (the files leave the set out, and put the samples in
+a table of their own).
 """
 
 import numpy as np
@@ -58,11 +62,13 @@ SPREAD_KEYS = (
     *(f"within_{k}_steps_percent" for k in STEP_COUNTS),
     "cov_xx", "cov_xy", "cov_yy", "ellipse_semi_major_xy", "ellipse_semi_minor_xy", "ellipse_max_steps_from_mean",
     "ellipse_min_steps_from_mean", "ellipse_max_steps_from_centre", "max_pairwise_delta_uv_prime",
-    "max_delta_uv_prime_from_mean", "ansi_bins_none_count",
+    "max_delta_uv_prime_from_mean", "ansi_bins_none_count", "bins_none_count",
 )
+#: Keys of :func:`lot_statistics` that are not part of the summary: the per-sample table and the ellipse set.
+NOT_SUMMARY = ("samples", "steps_ellipse_set")
 #: Columns of the per-sample table, in output order.
 SAMPLE_COLUMNS = ("name", "source", "x", "y", "u_prime", "v_prime", "cct_K", "duv", "ra", "r9", "rf", "rg",
-                  "sdcm_steps", "delta_uv_prime_from_mean", "ansi_nominal_cct_K", "flags")
+                  "sdcm_steps", "delta_uv_prime_from_mean", "ansi_nominal_cct_K", "bin", "flags")
 #: Beyond this |Duv| CIE 015:2018 advises against a CCT: a lot there has no centre of its own.
 WHITE_DUV = 0.05
 #: A rating taken from a list column is doubtful when that column is (flags name ``ri``, not R9).
@@ -153,6 +159,7 @@ def _steps_keys(xy, nominal, chosen, method, centre, flags):
     keys = {
         "steps_method": method if isinstance(method, str) else "set",
         "steps_set": ellipse_set.name,
+        "steps_ellipse_set": ellipse_set,
         "steps_metric_confirmed": confirmed,
         "steps_centre": centre,
         "steps_centre_nominal_cct_K": nominal,
@@ -209,6 +216,20 @@ def _rating_keys(ratings, sample_steps, flags):
     if partial:
         flags.append("lot_partial_values")
     return keys | {"doubtful_ratings": doubtful, "partial_ratings": partial}
+
+
+def _bin_keys(ratings):
+    """How many samples lie in each bin of the set they were rated with (``bin`` of the ratings), and in none."""
+    from collections import Counter
+
+    held = Counter(b for b in ratings["bin"] if b is not None)
+    names = sorted(held)
+    return {
+        "bin_set": ratings["bin_set"][0],
+        "bins_name": names,
+        "bins_count": [held[b] for b in names],
+        "bins_none_count": len(ratings) - sum(held.values()),
+    }
 
 
 def lot_statistics(ratings, *, nominal_cct_K=None, steps="ellipse", centre="ansi", probability=ELLIPSE_PROBABILITY):
@@ -278,11 +299,13 @@ def lot_statistics(ratings, *, nominal_cct_K=None, steps="ellipse", centre="ansi
         "ansi_bins_count": [int(np.sum(found == b)) for b in bins],
         "ansi_bins_none_count": int(np.sum(~np.isfinite(found))),
     }
+    out |= _bin_keys(ratings)
     out |= _rating_keys(ratings, sample_steps, flags)
     out["flags"] = flags
     columns = {
         "name": names,
         "source": tuple(ratings["source"]),
+        "bin": tuple(ratings["bin"]),
         "sdcm_steps": sample_steps,
         "delta_uv_prime_from_mean": from_mean,
         "ansi_nominal_cct_K": found,

@@ -20,8 +20,9 @@ A lot claims file is TOML (``docs/lots.md``)::
     share_at_least_percent = 100
 
 Each claim gives the measured value, the margin (how far on the right side of the claim;
-negative when it fails) and a verdict: holds, fails, or not shown (when the lot cannot
-decide it). The verdicts concern the samples supplied, not the whole production.
+negative when it is not met) and a verdict in the shared words of
+:mod:`lampcalc.verdicts.wording`: meets, does not meet, or not evaluated (when the lot
+cannot decide it). The verdicts concern the samples supplied, not the whole production.
 """
 
 import math
@@ -182,9 +183,9 @@ def read_lot_claims(path):
 
 
 def _result(claim, label, claimed, measured, margin, note="", undecided=""):
-    """One verdict; ``undecided`` gives the reason it cannot be shown (the margin is then kept, not used)."""
+    """One verdict; ``undecided`` gives the reason it cannot be evaluated (the margin is then kept, not used)."""
     decided = not undecided and margin is not None and np.isfinite(margin)
-    note = "; ".join(t for t in (f"not shown: {undecided}" if undecided else "", note) if t)
+    note = "; ".join(t for t in (f"not evaluated: {undecided}" if undecided else "", note) if t)
     return {
         "kind": claim.kind,
         "claim": label,
@@ -198,7 +199,7 @@ def _result(claim, label, claimed, measured, margin, note="", undecided=""):
     }
 
 
-def _rating_of(quantity):
+def rating_of(quantity):
     """The rating a ``<rating>_<statistic>`` key summarises, or None for a spread key."""
     for name in LOT_RATINGS:
         if quantity.startswith(name + "_") and quantity[len(name) + 1:] in STATISTICS:
@@ -211,7 +212,7 @@ def _check_quantity(claim, lot):
     measured = lot[v["quantity"]]
     measured = float(measured) if measured is not None else float("nan")
     margin = measured - v["claimed"] if v["bound"] == "at_least" else v["claimed"] - measured
-    rating = _rating_of(v["quantity"])
+    rating = rating_of(v["quantity"])
     undecided = ""
     if not np.isfinite(measured):
         undecided = "the lot gives no value"
@@ -281,11 +282,11 @@ class LotVerdicts:
 
     @property
     def all_hold(self):
-        """True when every claim holds (one that cannot be shown does not)."""
+        """True when every claim is met (one not evaluated is not shown to be)."""
         return all(c["pass"] is True for c in self.checks)
 
     def summary(self):
-        failed = sum(c["pass"] is False for c in self.checks)
-        undecided = sum(c["pass"] is None for c in self.checks)
-        text = f"{len(self.checks)} lot claims: {len(self.checks) - failed - undecided} hold, {failed} fail"
-        return text + (f", {undecided} cannot be shown" if undecided else "")
+        """The counts in the shared words: "4 lot claims: 3 met, 1 not met, 0 not evaluated"."""
+        results = [c["pass"] for c in self.checks]
+        return (f"{len(results)} lot claim{'s' if len(results) != 1 else ''}: {results.count(True)} met, "
+                f"{results.count(False)} not met, {results.count(None)} not evaluated")

@@ -37,7 +37,7 @@ DIGITS = {
     "ler_lm_per_W": (1, "lm/W"), "efficacy_lm_per_W": (1, "lm/W"), "sp_ratio": (2, ""),
     "luminous_flux_lm": (None, "lm"), "radiant_flux_W": (None, "W"), "electrical_W": (None, "W"),
     "illuminance_lx": (None, "lx"), "luminance_cd_per_m2": (None, "cd/m²"), "melanopic_edi_lx": (None, "lx"),
-    "peak_nm": (0, "nm"), "dominant_wavelength_nm": (1, "nm"), "centroid_nm": (1, "nm"), "fwhm_nm": (1, "nm"),
+    "delta_uv_prime": (5, ""), "peak_nm": (0, "nm"), "dominant_wavelength_nm": (1, "nm"), "centroid_nm": (1, "nm"), "fwhm_nm": (1, "nm"),
     "excitation_purity": (3, ""), "range_start_nm": (None, "nm"), "range_end_nm": (None, "nm"),
     "step_nm": (None, "nm"),
     **{f"{c}_elr_mW_per_lm": (3, "mW/lm") for c in ("s_cone", "m_cone", "l_cone", "rhodopic", "melanopic")},
@@ -128,9 +128,9 @@ class ClaimWording:
         return f"{self.verdict} {QUALIFIED}" if self.qualified else self.verdict
 
 
-def _show_side(value, limit, operator, passed, decimals):
+def side_decimals(value, limit, operator, passed, decimals):
     """Decimals that show on which side of ``limit`` the value lies (at most 3 more)."""
-    if not (_finite(value) and _finite(limit) and passed is not None and decimals is not None):
+    if not (_finite(value) and _finite(limit) and passed is not None and decimals is not None) or value == limit:
         return decimals
     for extra in range(4):
         shown = float(_plain_number(value, decimals + extra))
@@ -139,12 +139,13 @@ def _show_side(value, limit, operator, passed, decimals):
     return decimals + 3
 
 
-def _margin_text(margin, decimals, unit, passed):
+def margin_text(margin, decimals, unit, passed):
+    """A margin with its sign and unit; one below the shown digits keeps its side ("+<0.1")."""
     if not _finite(margin):
         return MISSING
     decimals = 0 if decimals is None else decimals
     text = _plain_number(margin, decimals, signed=True)
-    if float(text) == 0 and passed is not None:  # a margin below the shown digits keeps its side
+    if float(text) == 0 and margin != 0 and passed is not None:  # a margin below the shown digits keeps its side
         text = ("+" if passed else "-") + "<" + _plain_number(10.0**-decimals, decimals)
     return f"{text} {unit}".strip()
 
@@ -186,7 +187,7 @@ def _nominal_columns(check, nominal, passed):
     criterion, margin, note = check["criterion"], check["margin"], check["note"]
     key = _NOMINAL_CRITERIA[criterion]
     if not _finite(nominal):
-        return criterion, note, key, _margin_text(margin, 4, "", passed)
+        return criterion, note, key, margin_text(margin, 4, "", passed)
     if criterion == "bin":
         claim, basis = f"nominal {nominal:g} K: in its bin", note.split(";")[0].replace(": bin", ", bin")
     else:
@@ -194,12 +195,12 @@ def _nominal_columns(check, nominal, passed):
     if passed is None:
         basis = note.split(";")[0] if note else basis
     if criterion in ("ansi_quadrangle", "bin"):  # the check's margin is in 1e-3 of (u, v)
-        margin_text = _margin_text(None if margin is None else margin / 1e3, 4, "Δuv", passed)
+        margin_words = margin_text(None if margin is None else margin / 1e3, 4, "Δuv", passed)
         if passed is not None:
             basis = ("inside " if passed else "outside ") + basis
     else:
-        margin_text = _margin_text(margin, DIGITS[key][0], DIGITS[key][1], passed)
-    return claim, basis, key, margin_text
+        margin_words = margin_text(margin, DIGITS[key][0], DIGITS[key][1], passed)
+    return claim, basis, key, margin_words
 
 
 def word_check(check, *, nominal=None, flags=()):
@@ -231,9 +232,9 @@ def worded_check(check, nominal, flags):
     if criterion in _NOMINAL_CRITERIA:
         if criterion in ("ansi_quadrangle", "bin"):
             nominal = claimed
-        claim, basis, key, margin_text = _nominal_columns(check, nominal, passed)
+        claim, basis, key, margin_words = _nominal_columns(check, nominal, passed)
     elif criterion == "spectrum":
-        claim, basis, key, margin_text = "its spectrum", note, "spectrum", MISSING
+        claim, basis, key, margin_words = "its spectrum", note, "spectrum", MISSING
     else:
         words, operator, key, basis = _CRITERIA.get(criterion, (criterion, "≥", criterion, ""))
         decimals, unit = DIGITS.get(key, (None, ""))
@@ -244,9 +245,9 @@ def worded_check(check, nominal, flags):
             basis = f"{format_value('luminous_flux_lm', float(flux_lm), unit=True)} / {watts} electrical"
         elif measured is None and note:
             basis = note.replace("needs nominal_cct_K", "needs a claimed nominal CCT")
-        shown = _show_side(measured, claimed, operator, passed, decimals)
+        shown = side_decimals(measured, claimed, operator, passed, decimals)
         claim = f"{words} {operator} {format_value(key, claimed, decimals=_claim_decimals(claimed))} {unit}".rstrip()
-        margin_text = _margin_text(margin, shown, unit, passed)
+        margin_words = margin_text(margin, shown, unit, passed)
     doubtful = key in doubtful_keys(flags) and _finite(measured)
     if doubtful:
         basis = "in doubt, see the flags" + (f"; {basis}" if basis else "")
@@ -257,7 +258,7 @@ def worded_check(check, nominal, flags):
     wording = ClaimWording(
         claim=claim,
         measured=format_value(key, measured, doubtful=doubtful, unit=True, decimals=shown),
-        margin=margin_text,
+        margin=margin_words,
         verdict=VERDICT_WORDS[passed],
         why=basis,
         passed=passed,
@@ -305,8 +306,11 @@ def lamp_status(lamp_verdict):
 
 
 def lamp_line(lamp_verdict):
-    """One lamp's verdict in a few words: "meets all 9 claims", "does not meet 1 of 9 claims" …"""
-    if [c["criterion"] for c in lamp_verdict["checks"]] == ["spectrum"]:
+    """One lamp's verdict in a few words: "meets all 9 claims", "does not meet 1 of 9 claims" …
+
+    Also a lot's (``{"checks": LotVerdicts.checks}``): only each check's ``pass`` is read.
+    """
+    if [c.get("criterion") for c in lamp_verdict["checks"]] == ["spectrum"]:
         return "no spectrum among the files given; its claims are not checked"
     results = [c["pass"] for c in lamp_verdict["checks"]]
     n, failed, open_ = len(results), results.count(False), results.count(None)

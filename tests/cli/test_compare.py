@@ -12,6 +12,8 @@ import pytest
 
 from lampcalc.io.demo_data import demo_folder
 
+from ..report.conftest import pdf_pages
+
 SHEET = demo_folder() / "datasheet" / "quillfen_a60_2700_r9_datasheet.csv"
 SAMPLE = demo_folder() / "datasheet" / "quillfen_a60_2700_r9_sample.csv"
 
@@ -66,3 +68,61 @@ def test_bad_input(run, bb_table, write):
     assert result.exit_code == 2 and "broken.csv, line 3" in result.stderr
     result = run("compare", ref, ref, "--limit-delta-uv-prime", "-1")
     assert result.exit_code == 2
+
+
+def test_outputs_written_together_with_the_report(run, tmp_path):
+    # The workbook's numbers are the JSON's (openpyxl keeps 16 digits); the report holds the pair and both lamps.
+    import openpyxl
+
+    result = run("compare", SHEET, SAMPLE, "--limit-delta-uv-prime", "0.003", "--json", tmp_path / "c.json",
+                 "--xlsx", tmp_path / "c.xlsx", "--report", tmp_path / "c.pdf")
+    (pair,) = json.loads((tmp_path / "c.json").read_text())["pairs"]
+    assert result.exit_code == (0 if pair["pass"] else 1), result.output
+    book = openpyxl.load_workbook(tmp_path / "c.xlsx")
+    assert book.sheetnames == ["pairs", "unpaired", "flags", "notes"]
+    row = dict(zip([c.value for c in book["pairs"][1]], [c.value for c in book["pairs"][2]]))
+    assert row["delta_uv_prime"] == pytest.approx(pair["delta_uv_prime"], rel=1e-15)
+    assert [row[f"delta_r{k}"] for k in range(1, 16)] == pytest.approx(pair["delta_ri"], rel=1e-15)
+    assert [row[f"delta_rf_h{k:02d}"] for k in range(1, 17)] == pytest.approx(pair["delta_rf_hue_bins"], rel=1e-15)
+    pages = pdf_pages(tmp_path / "c.pdf")
+    assert len(pages) == 5  # summary, the pair, the two lamps, methods (A4)
+    verdict = "meets" if pair["pass"] else "does not meet"
+    assert f"Colour shift Δu′v′ {pair['delta_uv_prime']:.5f}: {verdict} your limit 0.003" in " ".join(pages[1].split())
+    assert "QF-A60-2700-R9 sample 7 (test)" in pages[3] + pages[2]
+    assert "does not meet" in result.output and "FAILS" not in result.output  # the shared verdict words
+
+
+def test_without_a_limit_no_verdict_column(run, bb_table, write):
+    path = write("bb.csv", bb_table([2700.0, 4000.0]))
+    result = run("compare", path, path)
+    assert result.exit_code == 0 and "verdict" not in result.output.splitlines()[0]
+    assert "no limit given (--limit-delta-uv-prime), so not evaluated" in result.output
+
+
+@pytest.mark.parametrize("args, fragment", [
+    (["--figure", "{tmp}/c.gif"], "--figure writes .png, .svg, .pdf files"),
+    (["--xlsx", "{tmp}/c.pdf"], "--xlsx writes a .xlsx file"),
+    (["--paper", "letter"], "add --report FILE"),
+    (["--json", "{tmp}/in.csv"], "is one of the input files"),
+])
+def test_bad_outputs_refused_before_the_work(run, tmp_path, bb_table, args, fragment):
+    ref = tmp_path / "in.csv"
+    ref.write_text(bb_table([2700.0]))
+    result = run("compare", ref, ref, *[a.format(tmp=tmp_path) for a in args])
+    assert result.exit_code == 2 and fragment in result.stderr and result.output.count("\n") <= 1
+
+
+def test_report_with_measurement_uncertainty(run, tmp_path):
+    # Both sides drawn by the demo laboratory's model (spectra_demo): the report shows the lamps' draws and, beside
+    # the verdict on the measured shift, the shift's u, 95 % interval and the decision of the JSON written with it.
+    from lampcalc.io.demo_data import demo_measurement_model
+
+    result = run("compare", SHEET, SAMPLE, "--limit-delta-uv-prime", "0.003", "--uncertainty", demo_measurement_model(),
+                 "--decision-rule", "guarded", "--json", tmp_path / "c.json", "--report", tmp_path / "c.pdf")
+    assert result.exit_code in (0, 1), result.output
+    (pair,) = json.loads((tmp_path / "c.json").read_text())["pairs"]
+    text = " ".join(" ".join(pdf_pages(tmp_path / "c.pdf")[1].split()).split())
+    low, high = pair["delta_uv_prime_interval95"]
+    assert (f"With measurement uncertainty: Δu′v′ {pair['delta_uv_prime']:.5f}, u {pair['delta_uv_prime_u']:.5f}, "
+            f"95 % interval {low:.5f} to {high:.5f}") in text
+    assert f"decision: {pair['decision']} (guarded acceptance" in text

@@ -26,6 +26,17 @@ def test_demo_writes_results(run, tmp_path):
     assert pair["reference_name"] == "QF-A60-2700-R9 data sheet" and pair["test_name"] == "QF-A60-2700-R9 sample 7"
     for figure in ("lot/lot_locus.png", "lot/lot_histograms.png", "angles/colour_over_angle.png", "compare_datasheet.png"):
         assert (out / figure).stat().st_size > 20_000, figure
+    assert sorted(p.name for p in (out / "angles").iterdir()) == ["colour_over_angle.png"]  # no lot figures for angles
+    # A report each for the lot, the downlight over angle and the comparison, with their own report numbers.
+    from ..report.conftest import pdf_pages
+
+    for name, number, heading in (("lot_report.pdf", "QF-DEMO-002", "Claims on the lot"),
+                                  ("angles_report.pdf", "QF-DEMO-003", "By angle"),
+                                  ("compare_report.pdf", "QF-DEMO-004", "Spectra and ratings")):
+        pages = pdf_pages(out / name)
+        assert f"report {number}" in pages[0] and any(heading in p for p in pages), name
+        assert any("Colour of the lot" in p for p in pages) is (name == "lot_report.pdf")  # angles: no lot pages
+    assert (out / "lot.xlsx").stat().st_size > 5_000
     # Rated alone, the top folder is what it was: the subfolders are not part of the first demo rating.
     assert len(records) == 9
     # One lamp's verdicts with the fictional laboratory's measurement uncertainty (ILAC-G8 guarded acceptance).

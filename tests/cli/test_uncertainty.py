@@ -128,12 +128,12 @@ def test_lot_with_uncertainty_adds_it_to_the_statistics_and_says_what_it_is_not(
     spectra, model = write("lot.csv", bb_table([2950.0, 2990.0, 3020.0, 3060.0])), write("lab.toml", MODEL)
     plain, judged = tmp_path / "plain.json", tmp_path / "judged.json"
     before = run("lot", spectra, "--json", plain)
-    after = run("lot", spectra, "--uncertainty", model, "--json", judged, "--csv", tmp_path / "lot.csv")
+    after = run("lot", spectra, "--uncertainty", model, "--json", judged, "--csv", tmp_path / "summary.csv")
     assert before.exit_code == after.exit_code == 0, after.output
     old, new = (json.loads(path.read_text())["lot"] for path in (plain, judged))
     assert {k: new[k] for k in old} == old  # the statistics themselves are those of the spectra as measured
     assert new["cct_K_mean_u"] > 0 and new["cct_K_mean_interval95"][0] < new["cct_K_mean"] < new["cct_K_mean_interval95"][1]
     assert new["measurement_model"].startswith("noise 0.5 %")
     assert "not the lot's sampling uncertainty" in after.stdout
-    header = (tmp_path / "lot.csv").read_text().splitlines()[0].split(",")
+    header = (tmp_path / "summary.csv").read_text().splitlines()[0].split(",")
     assert header[header.index("ra_mean") + 1: header.index("ra_mean") + 3] == ["ra_mean_u", "ra_mean_interval95"]

@@ -86,3 +86,30 @@ def test_whole_figures_save(lot, tmp_path):
         for name, fig in (("d.png", lot_diagram_figure(lot)), ("h.svg", lot_histograms_figure(lot))):
             save_figure(fig, tmp_path / name)
             assert (tmp_path / name).stat().st_size > 10_000
+
+
+def test_rings_of_a_users_ellipse_set(invent, around, write):
+    # A laboratory's set of u′v′ circles of radius 0.002 (a set file of our own, docs/standard-sets.md): a ring of
+    # n steps lies at n × 0.002 from the centre in u′v′ (colour-science's xy_to_Luv_uv, reference library).
+    import colour
+
+    from lampcalc.standards.ellipse_sets import read_ellipse_set
+
+    circles = read_ellipse_set(write("circles.csv", "# name: lab circles\n# source: laboratory procedure\n# edition: 1\n"
+                                     "# confirmed: yes\n# space: upvp\nname,nominal_cct_K,x,y,a,b,theta_deg\n"
+                                     "circle,,,,0.002,0.002,0\n"))
+    lot = lot_statistics(invent(around(ANSI_3000, n=14, spread=0.0015, seed=11)), nominal_cct_K=3000, steps=circles)
+    assert lot["steps_method"] == "set" and lot["steps_ellipse_set"] is circles
+    with figure_style():
+        ax = new_figure().add_subplot()
+        draw_lot_diagram(ax, lot)
+    centre = colour.xy_to_Luv_uv(np.array([lot["steps_centre_x"], lot["steps_centre_y"]]))
+    rings = [line for line in ax.lines if str(line.get_gid()).startswith("steps_ring:")]
+    assert len(rings) >= 3  # 1, 2, 3 … steps
+    for ring in rings:
+        n = int(ring.get_gid().split(":")[1])
+        radius = np.hypot(*(colour.xy_to_Luv_uv(ring.get_xydata()) - centre).T)
+        np.testing.assert_allclose(radius, n * 0.002, rtol=1e-9)
+    # A lot read back from JSON has no set: its rings cannot be drawn, and the figure says why.
+    with pytest.raises(ValueError, match="a user's ellipse set"):
+        draw_lot_diagram(new_figure().add_subplot(), dict(lot, steps_ellipse_set=None))

@@ -102,3 +102,24 @@ def odd_report(tmp_path_factory, odd_lamps):
     path = tmp_path_factory.mktemp("odd_report") / "odd.pdf"
     lampcalc.write_report(path, odd_lamps, paper="letter")
     return path, pdf_pages(path)
+
+
+@pytest.fixture(scope="session")
+def demo_lot():
+    """The demo supplier's delivery of 12 lamps, rated with their claimed nominal CCT, its statistics and claims."""
+    import lampcalc
+    from lampcalc.io.demo_data import demo_lot_claims, demo_set
+    from lampcalc.verdicts.lot import lot_statistics
+    from lampcalc.verdicts.lot_claims import check_lot_claims, read_lot_claims
+
+    batch = lampcalc.SpectralBatch.concatenate([lampcalc.read_spectra(f).on_grid() for f in demo_set("lot")])
+    ratings = lampcalc.rate_spectra(batch, nominal_cct_K=[3000.0] * batch.n_lamps)
+    lot = lot_statistics(ratings, nominal_cct_K=3000)
+    return ratings, lot, check_lot_claims(read_lot_claims(demo_lot_claims()), lot)
+
+
+def builder(module):
+    """The page builder of ``lampcalc.report.<module>``."""
+    import importlib
+
+    return importlib.import_module(f"lampcalc.report.{module}").PAGES

@@ -101,7 +101,8 @@ def test_page_builders_in_order_and_a_page_added_from_outside(tmp_path, two_lamp
 
     builders = {type(b).__name__: b for b in page_builders()}
     names = list(builders)  # other issues add builders of their own between these
-    order = ["SummaryPages", "UncertaintyPages", "LampPages", "MethodsPage"]
+    order = ["SummaryPages", "LotPages", "AnglePages", "ComparisonPages", "UncertaintyPages", "LampPages",
+             "MethodsPage"]
     assert [n for n in names if n in order] == order
 
     class LotPage:  # what another engineer's module would define as PAGES

@@ -39,3 +39,34 @@ def test_interpolation_per_lamp(demo_report, demo_check):
 def test_nothing_client_facing_says_from_memory(demo_report):
     _, pages = demo_report
     assert not any("memory" in page.lower() for page in pages)
+
+
+def test_methods_of_a_lot_of_angles_and_of_a_comparison(tmp_path, demo_lot, demo_report):
+    # What the lot, angle and comparison pages rest on is stated where the report holds them, and only there:
+    # ddof = 1, the percentile method (Hyndman and Fan 1996, definition 7), χ²₂(0.95) = −2·ln 0.05 = 5.991,
+    # the weighting of the mean point over angle, the ratio floor of the comparison figure (5 % of the peak).
+    import numpy as np
+
+    import lampcalc
+    from lampcalc.report.document import Report
+    from lampcalc.verdicts.angles import colour_over_angle
+    from lampcalc.verdicts.comparison import compare_ratings
+
+    from .conftest import builder, pdf_pages
+
+    ratings, lot, verdicts = demo_lot
+    batch = ratings.extras["batch"]
+    angled = lampcalc.rate_spectra(lampcalc.SpectralBatch(batch.wavelength_nm, batch.values[:3], batch.names[:3],
+                                                          angle_deg=[0.0, 30.0, 60.0]))
+    report = Report(None, lot=lot, lot_verdicts=verdicts,
+                    comparison=(ratings, ratings, compare_ratings(ratings, ratings)), pages=[builder("methods_page")])
+    path = tmp_path / "methods.pdf"
+    report.write(path)
+    text = _methods(pdf_pages(path))
+    assert "ddof = 1" in text and "Hyndman and Fan, 1996" in text and f"{-2 * np.log(0.05):.3f}" in text
+    assert "no promise for the next lamp" in text and "above 5 % of its peak" not in text
+    assert "at least 5 % of its peak" in text and "Colour over angle" not in text
+    Report(angled, angles=colour_over_angle(angled), pages=[builder("methods_page")]).write(path)
+    text = _methods(pdf_pages(path))
+    assert "no solid-angle (zonal) weighting" in text and "No limit is applied by default" in text
+    assert "ddof" not in _methods(demo_report[1])  # a report of lamps alone says nothing of lots

@@ -12,7 +12,7 @@ import itertools
 import numpy as np
 import pytest
 
-from lampcalc.verdicts.lot import LOT_RATINGS, SPREAD_KEYS, lot_statistics, steps_between, steps_ring_xy
+from lampcalc.verdicts.lot import LOT_RATINGS, NOT_SUMMARY, SPREAD_KEYS, lot_statistics, steps_between, steps_ring_xy
 
 ANSI_3000 = (0.4339, 0.4033)  # REFERENCE_VALUES.md, ANSI C78.377-2017 3000 K centre (4 decimals)
 ANSI_4000 = (0.3818, 0.3797)  # REFERENCE_VALUES.md, 4000 K centre
@@ -211,6 +211,6 @@ def test_every_output_key_is_documented(invent, around):
     assert ratings == list(LOT_RATINGS)
     per_rating = {f"{r}_{s}" for r in LOT_RATINGS for s in ("n", "mean", "sd", "min", "max", "p05", "p95")}
     within = {f"within_{k}_steps_percent" for k in range(1, 8)}
-    undocumented = set(lot) - named - per_rating - within - {"samples"}
+    undocumented = set(lot) - named - per_rating - within - set(NOT_SUMMARY)
     assert undocumented == set()
     assert set(lot["samples"]) <= named

@@ -73,7 +73,7 @@ def test_verdicts_against_direct_counts(invent, write):
     # x + 0.008 at the centre's y stays inside the 3000 K quadrangle (its corners span x 0.415-0.456, REFERENCE_VALUES.md)
     assert inside["measured"] == pytest.approx(100.0) and inside["pass"] is True
     assert not verdicts.all_hold
-    assert verdicts.summary() == "5 lot claims: 2 hold, 3 fail"
+    assert verdicts.summary() == "5 lot claims: 2 met, 3 not met, 0 not evaluated"  # the shared verdict words
 
 
 def test_doubtful_or_missing_values_decide_nothing(invent, write):

@@ -103,6 +103,9 @@ def test_digits_near_the_limit_show_the_side():
     # A quadrangle margin below the printed digits keeps its sign (the 4.787e-07).
     q = word_check(_check("ansi_quadrangle", 3000.0, 3100.0, 4.787e-4, True, ""))
     assert q.margin == "+<0.0001 Δuv"
+    # A value exactly on its limit meets a "≥" claim: it prints as it is, with no extra digits and a zero margin.
+    exact = word_check(_check("ra", 80.0, 80.0, 0.0, True))
+    assert exact.measured == "80.0" and exact.margin == "+0.0"
 
 
 def test_qualified_verdicts():
