@@ -49,15 +49,22 @@ def test_unknown_attribute():
 
 
 def test_every_subpackage_ships():
-    # A wheel built from pyproject.toml's explicit package list must hold every subpackage.
+    # A wheel built from pyproject.toml's explicit package list must hold every subpackage and every
+    # folder of data (the tables, the shipped sets, the demo's folders).
     import re
     from pathlib import Path
 
     root = Path(__file__).resolve().parents[1]
     block = re.search(r"^packages = \[(.*?)\]", (root / "pyproject.toml").read_text(), re.M | re.S).group(1)
     listed = {name.strip().strip('"') for name in block.split(",") if name.strip()}
-    found = {"lampcalc"} | {
-        "lampcalc." + p.parent.relative_to(root / "lampcalc").as_posix().replace("/", ".")
-        for p in (root / "lampcalc").glob("*/__init__.py")
-    }
-    assert found | {"lampcalc.spectra_demo"} == listed
+
+    def dotted(folder, base, prefix):
+        parts = folder.relative_to(base).parts
+        return ".".join((prefix, *parts)) if parts else prefix
+
+    found = set()
+    for base, prefix in ((root / "lampcalc", "lampcalc"), (root / "spectra_demo", "lampcalc.spectra_demo")):
+        for folder in [base, *(p for p in base.rglob("*") if p.is_dir() and p.name != "__pycache__")]:
+            if any(f.is_file() and f.suffix != ".pyc" for f in folder.iterdir()):
+                found.add(dotted(folder, base, prefix))
+    assert found == listed
