@@ -1,9 +1,9 @@
 """What ``lampcalc lot`` shows: the lot's colour, its ratings' statistics, colour over angle, lot claims."""
 
-from ..rating.flags import explain
+from ..rating.flags import explain_with_option
 from ..standards.ansi_bins import ansi_bin_set
 from ..verdicts.lot import DOUBT_SOURCE, LOT_RATINGS
-from ..verdicts.lot_wording import limit_line, word_lot_checks
+from ..verdicts.lot_wording import RATING_WORDS, limit_line, word_lot_checks
 from ..verdicts.wording import QUALIFIED, lamp_line
 from .common import flagged, fmt
 from .text_table import format_table
@@ -44,8 +44,9 @@ def flag_lines(flags, lot=None):
     lists = {"lot_doubtful_values": "doubtful_ratings", "lot_partial_values": "partial_ratings"}
     lines = []
     for flag in flags:
-        which = f" ({', '.join(lot[lists[flag]])})" if lot is not None and flag in lists else ""
-        lines.append(f"  {flag}: {explain(flag)}{which}")
+        named = lot[lists[flag]] if lot is not None and flag in lists else ()
+        which = f" ({', '.join(RATING_WORDS.get(r, r) for r in named)})" if named else ""
+        lines.append(f"  {flag}: {explain_with_option(flag)}{which}")
     return "\n".join(lines)
 
 
@@ -124,7 +125,10 @@ def angle_text(angles):
     """Colour over angle: one row per angle, then the largest Δu'v' and the verdict."""
     a = angles
     t = a["angles"]
-    weighting = "unweighted (relative spectra)" if a["angle_weighting"] == "none" else f"weighted by {a['angle_weighting']}"
+    from ..plots.angles import WEIGHTING_WORDS
+
+    w = a["angle_weighting"]
+    weighting = "unweighted (relative spectra)" if w == "none" else WEIGHTING_WORDS.get(w, f"weighted by {w}")
     rows = [[fmt(t["angle_deg"][k], "g"), t["name"][k], fmt(t["u_prime"][k], ".5f"), fmt(t["v_prime"][k], ".5f"),
              fmt(t["cct_K"][k], ".0f"), fmt(t["duv"][k], "+.4f"), fmt(t["delta_uv_prime"][k], ".5f")]
             for k in range(len(t["name"]))]
