@@ -27,7 +27,7 @@ RATING_LABELS = {
     "illuminance_lx": ("illuminance", "lx", ".1f"),
     "luminance_cd_per_m2": ("luminance", "cd/m2", ".1f"),
     "efficacy_lm_per_W": ("lamp efficacy", "lm/W", ".1f"),
-    "sp_ratio": ("S/P", "", ".3f"),
+    "sp_ratio": ("S/P", "", ".2f"),
     "melanopic_der": ("mel-DER", "", ".3f"),
     "melanopic_edi_lx": ("mel-EDI", "lx", ".1f"),
     "sdcm_steps": ("steps from centre", "steps", ".2f"),
@@ -148,5 +148,5 @@ def lot_claims_text(verdicts):
     head = "Lot claims" + (f" of {verdicts.product}" if verdicts.product else "")
     table = format_table(["the supplier says", "claim", "measured", "margin", "verdict", "why"], rows, "llrrll")
     lines = [f"{head}: the lot {lamp_line({'checks': verdicts.checks})}", table, verdicts.summary()]
-    lines += [f"{QUALIFIED} qualified: {text[0].upper()}{text[1:]}." for text in notes]
+    lines += [f"{QUALIFIED} qualified: {text}." for text in notes]
     return "\n".join(lines)
