@@ -69,7 +69,9 @@ def lot_text(lot, over_angle=False):
         method = s["steps_set"] + ("" if s["steps_metric_confirmed"] else " (not confirmed, see docs/claims.md)")
         rows.append(["centre", f"{s['steps_centre_nominal_cct_K']:g} K ({s['steps_centre_chosen']}), "
                      f"{s['steps_centre'].upper()} centre x {s['steps_centre_x']:.5f}, y {s['steps_centre_y']:.5f}; {method}"])
-        shares = "  ".join(f"{k}: {s[f'within_{k}_steps_percent']:.0f} %" for k in range(1, 8))
+        doubt = "sdcm_steps" in s["doubtful_ratings"]  # shares counted with a doubtful metric, as in the report
+        shares = "  ".join(f"{k}: " + ("({} %)" if doubt else "{} %").format(fmt(s[f"within_{k}_steps_percent"], ".0f"))
+                           for k in range(1, 8))
         rows.append(["within n steps", shares])
     rows.append(["95 % ellipse", _ellipse_text(s)])
     if s["n_samples"] >= 2:
