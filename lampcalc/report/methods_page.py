@@ -31,7 +31,8 @@ METHODS = [
      "categories; CIE 1964 10° for CIE 224 / TM-30-18, as that method prescribes."),
     ("CCT and Duv", "The exact nearest point of the Planckian locus (c2 = 1.4388 × 10⁻² m·K) in the CIE 1960 (u, v) "
      "diagram, not an approximation formula. Duv is positive above the locus (towards green), as in ANSI C78.377. "
-     "No CCT outside 1000–100 000 K; beyond |Duv| = 0.05 a CCT is flagged and printed in parentheses, as CIE 015:2018 advises against its use."),
+     "No CCT outside 1000–100 000 K; beyond |Duv| = 0.05 a CCT is flagged and printed in parentheses, as "
+     "CIE 015:2018 advises against its use."),
     ("Colour rendering", "CIE 13.3-1995: Ra and R1–R14, with R15 the skin-tone sample of JIS Z 8726:1990; "
      "reference Planckian below 5000 K, CIE daylight from 5000 K; values unrounded (tables that round each Ri first "
      "can differ by one in Ra's last digit). Valid where the distance DC ≤ 0.0054; beyond, values are printed "
@@ -113,7 +114,8 @@ def _unconfirmed_text(records):
 
     bins = ansi_bin_set()
     built = [name for name, confirmed in zip(bins.names, bins.bin_confirmed) if not confirmed]
-    items = [f"{bins.name}: those of {' and '.join([', '.join(built[:-1]), built[-1]] if len(built) > 1 else built)} K (corners built by the standard's construction, "
+    listed = " and ".join([", ".join(built[:-1]), built[-1]] if len(built) > 1 else built)
+    items = [f"{bins.name}: those of {listed} K (corners built by the standard's construction, "
              "not read from its published table)"] if built else []
     shipped = {}
     for kind in SHIPPED:

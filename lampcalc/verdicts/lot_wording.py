@@ -43,14 +43,17 @@ _STATISTIC_CLAIMS = {"n": "samples with", "mean": "mean", "sd": "sd of", "min": 
                      "p05": "5th percentile of", "p95": "95th percentile of"}
 #: Lot numbers other than a rating's statistics, in words (the keys of lampcalc.verdicts.lot.SPREAD_KEYS).
 _SPREAD_WORDS = {
-    "n_samples": "samples", "mean_x": "mean x", "mean_y": "mean y", "mean_u_prime": "mean u′", "mean_v_prime": "mean v′",
+    "n_samples": "samples", "mean_x": "mean x", "mean_y": "mean y",
+    "mean_u_prime": "mean u′", "mean_v_prime": "mean v′",
     "mean_point_cct_K": "CCT of the mean point", "mean_point_duv": "Duv of the mean point",
     "cov_xx": "covariance of x", "cov_xy": "covariance of x and y", "cov_yy": "covariance of y",
-    "ellipse_semi_major_xy": "ellipse's semi-major axis in x, y", "ellipse_semi_minor_xy": "ellipse's semi-minor axis in x, y",
+    "ellipse_semi_major_xy": "ellipse's semi-major axis in x, y",
+    "ellipse_semi_minor_xy": "ellipse's semi-minor axis in x, y",
     "ellipse_max_steps_from_mean": "ellipse's largest steps from the mean point",
     "ellipse_min_steps_from_mean": "ellipse's smallest steps from the mean point",
     "ellipse_max_steps_from_centre": "ellipse's largest steps from the centre",
-    "max_pairwise_delta_uv_prime": "largest pairwise Δu′v′", "max_delta_uv_prime_from_mean": "largest Δu′v′ from the mean point",
+    "max_pairwise_delta_uv_prime": "largest pairwise Δu′v′",
+    "max_delta_uv_prime_from_mean": "largest Δu′v′ from the mean point",
     "ansi_bins_none_count": "samples in no ANSI category", "bins_none_count": "samples in no bin",
 }
 

@@ -17,7 +17,8 @@ def _value(label):
 
 
 def _labelled(axis):
-    ticks = [(t.get_loc(), t.label1.get_text() or t.label2.get_text()) for t in axis.get_major_ticks() + axis.get_minor_ticks()]
+    ticks = [(t.get_loc(), t.label1.get_text() or t.label2.get_text())
+             for t in axis.get_major_ticks() + axis.get_minor_ticks()]
     low, high = sorted(axis.get_view_interval())
     return [(loc, text) for loc, text in ticks if text and low <= loc <= high]
 
