@@ -118,7 +118,7 @@ def demo_sets(out):
     outputs = prepare_outputs(angles, json=out / "angles.json", report=out / "angles_report.pdf")
     statuses.append(lot_and_write(angles, limit=0.004, outputs=outputs, figures_dir=out / "angles",
                                   report_options=report_options("QF-DEMO-003", "Quillfen Lighting: QF-DL-4000 over angle")))
-    click.echo("\nA lamp QF-A60-2700-R9 of a delivery against its data-sheet spectrum (spectra_demo/datasheet/), "
+    click.echo("\nA lamp QF-A60-2700-R9 from a delivery against its data-sheet spectrum (spectra_demo/datasheet/), "
                "limit 0.003 Δu'v':\n")
     folder = demo_folder() / "datasheet"
     sides = [folder / "quillfen_a60_2700_r9_datasheet.csv"], [folder / "quillfen_a60_2700_r9_sample.csv"]

@@ -1,9 +1,9 @@
 """What ``lampcalc lot`` shows: the lot's colour, its ratings' statistics, colour over angle, lot claims."""
 
-from ..rating.flags import explain
+from ..rating.flags import explain_with_option
 from ..standards.ansi_bins import ansi_bin_set
 from ..verdicts.lot import DOUBT_SOURCE, LOT_RATINGS
-from ..verdicts.lot_wording import limit_line, word_lot_checks
+from ..verdicts.lot_wording import RATING_WORDS, limit_line, word_lot_checks
 from ..verdicts.wording import QUALIFIED, lamp_line
 from .common import flagged, fmt
 from .text_table import format_table
@@ -27,7 +27,7 @@ RATING_LABELS = {
     "illuminance_lx": ("illuminance", "lx", ".1f"),
     "luminance_cd_per_m2": ("luminance", "cd/m2", ".1f"),
     "efficacy_lm_per_W": ("lamp efficacy", "lm/W", ".1f"),
-    "sp_ratio": ("S/P", "", ".3f"),
+    "sp_ratio": ("S/P", "", ".2f"),
     "melanopic_der": ("mel-DER", "", ".3f"),
     "melanopic_edi_lx": ("mel-EDI", "lx", ".1f"),
     "sdcm_steps": ("steps from centre", "steps", ".2f"),
@@ -44,8 +44,9 @@ def flag_lines(flags, lot=None):
     lists = {"lot_doubtful_values": "doubtful_ratings", "lot_partial_values": "partial_ratings"}
     lines = []
     for flag in flags:
-        which = f" ({', '.join(lot[lists[flag]])})" if lot is not None and flag in lists else ""
-        lines.append(f"  {flag}: {explain(flag)}{which}")
+        named = lot[lists[flag]] if lot is not None and flag in lists else ()
+        which = f" ({', '.join(RATING_WORDS.get(r, r) for r in named)})" if named else ""
+        lines.append(f"  {flag}: {explain_with_option(flag)}{which}")
     return "\n".join(lines)
 
 
@@ -68,7 +69,9 @@ def lot_text(lot, over_angle=False):
         method = s["steps_set"] + ("" if s["steps_metric_confirmed"] else " (not confirmed, see docs/claims.md)")
         rows.append(["centre", f"{s['steps_centre_nominal_cct_K']:g} K ({s['steps_centre_chosen']}), "
                      f"{s['steps_centre'].upper()} centre x {s['steps_centre_x']:.5f}, y {s['steps_centre_y']:.5f}; {method}"])
-        shares = "  ".join(f"{k}: {s[f'within_{k}_steps_percent']:.0f} %" for k in range(1, 8))
+        doubt = "sdcm_steps" in s["doubtful_ratings"]  # shares counted with a doubtful metric, as in the report
+        shares = "  ".join(f"{k}: " + ("({} %)" if doubt else "{} %").format(fmt(s[f"within_{k}_steps_percent"], ".0f"))
+                           for k in range(1, 8))
         rows.append(["within n steps", shares])
     rows.append(["95 % ellipse", _ellipse_text(s)])
     if s["n_samples"] >= 2:
@@ -124,7 +127,10 @@ def angle_text(angles):
     """Colour over angle: one row per angle, then the largest Δu'v' and the verdict."""
     a = angles
     t = a["angles"]
-    weighting = "unweighted (relative spectra)" if a["angle_weighting"] == "none" else f"weighted by {a['angle_weighting']}"
+    from ..plots.angles import WEIGHTING_WORDS
+
+    w = a["angle_weighting"]
+    weighting = "unweighted (relative spectra)" if w == "none" else WEIGHTING_WORDS.get(w, f"weighted by {w}")
     rows = [[fmt(t["angle_deg"][k], "g"), t["name"][k], fmt(t["u_prime"][k], ".5f"), fmt(t["v_prime"][k], ".5f"),
              fmt(t["cct_K"][k], ".0f"), fmt(t["duv"][k], "+.4f"), fmt(t["delta_uv_prime"][k], ".5f")]
             for k in range(len(t["name"]))]
@@ -144,5 +150,5 @@ def lot_claims_text(verdicts):
     head = "Lot claims" + (f" of {verdicts.product}" if verdicts.product else "")
     table = format_table(["the supplier says", "claim", "measured", "margin", "verdict", "why"], rows, "llrrll")
     lines = [f"{head}: the lot {lamp_line({'checks': verdicts.checks})}", table, verdicts.summary()]
-    lines += [f"{QUALIFIED} qualified: {text[0].upper()}{text[1:]}." for text in notes]
+    lines += [f"{QUALIFIED} qualified: {text}." for text in notes]
     return "\n".join(lines)

@@ -1,6 +1,6 @@
 """The tables the commands print: ratings and claim verdicts, with their notes."""
 
-from ..rating.flags import doubtful_keys, explain
+from ..rating.flags import doubtful_keys, explain_with_option
 from .common import flagged, fmt
 
 
@@ -12,7 +12,7 @@ def _rating_rows(ratings):
         rows.append(
             [
                 r["name"],
-                fmt(r["cct_K"], ".0f"),
+                flagged(r["cct_K"], ".0f", "cct_K" in doubt),
                 fmt(r["duv"], "+.4f"),
                 flagged(r["ansi_nominal_cct_K"], ".0f", "ansi_nominal_cct_K" in doubt),
                 flagged(r["sdcm_steps"], ".1f", "sdcm_steps" in doubt),
@@ -83,7 +83,7 @@ def legend_of(flags, counts=None):
     def count(flag):
         return "" if counts is None else f" ({counts[flag]:,} lamp{'s' if counts[flag] != 1 else ''})"
 
-    return "\n".join(f"  {flag}{count(flag)}: {explain(flag)}" for flag in sorted(set(flags)))
+    return "\n".join(f"  {flag}{count(flag)}: {explain_with_option(flag)}" for flag in sorted(set(flags)))
 
 
 def verdict_text(verdicts, ratings=None):

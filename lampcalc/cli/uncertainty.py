@@ -76,8 +76,8 @@ def rate_with_model(batches, model, interpolation, nominal=None, sets=None, on_d
 
 # Terminal column: (header, key, format); the interval of the key is shown.
 _COLUMNS = (
-    ("x", "x", ".4f"), ("y", "y", ".4f"), ("CCT K", "cct_K", ".0f"), ("Duv", "duv", "+.4f"), ("Ra", "ra", ".2f"),
-    ("R9", ("ri", 8), ".2f"), ("Rf", "rf", ".2f"), ("Rg", "rg", ".2f"), ("LER lm/W", "ler_lm_per_W", ".1f"),
+    ("x", "x", ".4f"), ("y", "y", ".4f"), ("CCT K", "cct_K", ".0f"), ("Duv", "duv", "+.4f"), ("Ra", "ra", ".1f"),
+    ("R9", ("ri", 8), ".1f"), ("Rf", "rf", ".1f"), ("Rg", "rg", ".1f"), ("LER lm/W", "ler_lm_per_W", ".1f"),
     ("lamp lm/W", "efficacy_lm_per_W", ".1f"),
 )
 

@@ -24,7 +24,7 @@ def draw_delta_uv_over_angle(ax, angles):
             label="Δu′v′ from the mean point")
     worst = angles["angle_of_max_delta_uv_prime_deg"], angles["max_delta_uv_prime_over_angle"]
     ax.plot(*worst, marker="o", ms=7, mfc="none", mec=INK, ls="none", gid="largest",
-            label=f"largest: {worst[1]:.4f} at {worst[0]:g}°")
+            label=f"largest: {worst[1]:.5f} at {worst[0]:g}°")
     limit = angles["limit_delta_uv_prime"]
     top = max(worst[1], limit or 0.0)
     if limit is not None:

@@ -62,7 +62,7 @@ def comparison_figure(reference, test, comparison, k=0):
     draw_normalised_spectra(top, ref_batch.values[i], test_batch.values[j], reference_name=p["reference_name"][k],
                             test_name=p["test_name"][k], **ranges)
     top.set_title(f"{p['test_name'][k]} (test) against {p['reference_name'][k]} (reference)\n"
-                  f"Δu′v′ {p['delta_uv_prime'][k]:.4f}, ΔCCT {p['delta_cct_K'][k]:+.0f} K, ΔDuv {p['delta_duv'][k]:+.4f}",
+                  f"Δu′v′ {p['delta_uv_prime'][k]:.5f}, ΔCCT {p['delta_cct_K'][k]:+.0f} K, ΔDuv {p['delta_duv'][k]:+.4f}",
                   loc="left")
     draw_spectral_ratio(fig.add_subplot(2, 1, 2, sharex=top), ref_batch.values[i], test_batch.values[j], **ranges)
     return fig

@@ -9,7 +9,7 @@ from ..colorimetry.photometry import (
 from ..physics.blackbody import peak_wavelength_nm, radiant_exitance, spectral_radiance
 from ..spectra.resampling import GRID_NM
 from .labels import place_labels
-from .style import DAYLIGHT, INK, LAMP, PLANCK
+from .style import DAYLIGHT, INK, LAMP, PLANCK, plain_log_ticks
 
 
 def draw_blackbody_efficacy(ax, lamps=(), t_range_K=(500.0, 20000.0)):
@@ -35,6 +35,7 @@ def draw_blackbody_efficacy(ax, lamps=(), t_range_K=(500.0, 20000.0)):
     for name, cct, ler in shown:
         ax.plot(cct, ler, marker="D", ms=3.6, mfc=LAMP, mec="white", mew=0.5, ls="none", gid=f"lamp:{name}")
     ax.set_xscale("log")
+    plain_log_ticks(ax.xaxis)
     ax.set_xlim(*t_range_K)
     ax.set_ylim(0, max([total.max(), band.max()] + [v for _, _, v in shown]) * 1.12)
     ax.set_xlabel("temperature (K)")
@@ -54,12 +55,15 @@ def draw_peak_and_exitance(ax, t_range_K=(500.0, 20000.0)):
     ax.axhspan(380, 780, color="#f0e6d2", zorder=0, lw=0)
     ax.set_xscale("log")
     ax.set_yscale("log")
+    plain_log_ticks(ax.xaxis)
+    plain_log_ticks(ax.yaxis)
     ax.set_xlim(*t_range_K)
     ax.set_xlabel("temperature (K)")
     ax.set_ylabel("peak wavelength (nm)", color=PLANCK)
     right = ax.twinx()
     right.plot(t, radiant_exitance(t), color=INK, lw=0.9, ls=(0, (5, 2)), gid="exitance", label="exitance σT⁴")
     right.set_yscale("log")
+    plain_log_ticks(right.yaxis)
     right.set_ylabel("radiant exitance (W/m²)")
     ax.grid(True, which="both")
     ax.set_title("Wien peak (shaded: 380–780 nm) and Stefan–Boltzmann exitance", loc="left")

@@ -67,8 +67,9 @@ class HueGraphic:
         if axis_labels:
             ax.set_xlabel("a′ (normalised)")
             ax.set_ylabel("b′ (normalised)")
-        if legend:
-            ax.legend(loc="lower right", fontsize=6.5)
+        if legend:  # in a band of its own under the circle, clear of the bin numbers
+            ax.set_ylim(-1.68, 1.4)
+            ax.legend(loc="lower center", fontsize=6.5, ncol=2)
         ax.set_title(title, loc="left")
         self._unit = unit
 

@@ -1,7 +1,8 @@
 """Point labels placed next to their points, clear of other labels, points and drawn lines.
 
-Each label is tried at positions around its point, nearest first: in eight directions just
-beside the marker, then further out (joined to the point by a thin leader line). A position
+Each label is tried at positions around its point, nearest first: in twelve directions just
+beside the marker, then further out (joined to the point by a thin leader line), and furthest
+only when every nearer place is taken. A position
 is refused when the label would overlap a label already placed, another text in the axes,
 the legend, a marker or the axes' edge; among the rest the one crossing the fewest drawn
 lines (quadrangle edges, loci, isotherms) wins, nearer before further. Everything is
@@ -12,10 +13,12 @@ import numpy as np
 
 from .style import plain_text
 
-#: Radii tried, in points from the point: beside the marker, then with a leader line.
-RADII_PT = (3.0, 10.0, 18.0, 28.0)
+#: Radii tried, in points from the point: beside the marker, then with a leader line; the last ones
+#: only when every nearer place is taken (a tight cluster of points).
+RADII_PT = (3.0, 10.0, 18.0, 28.0, 40.0, 54.0, 70.0)
 _DIRECTIONS = np.deg2rad([30, 150, 330, 210, 90, 270, 0, 180, 60, 120, 300, 240])
 _LEADER_FROM = 1  # radii from this index on get a leader line
+_FALLBACK_FROM = 4  # radii from this index on only when no nearer place is free
 
 
 #: How much crossing a drawn line costs a label, by the line's gid prefix (default 1).
@@ -159,11 +162,16 @@ def place_labels(ax, points, names, colour, fontsize=6.5, gid_prefix="label:"):
         ends = np.stack([np.clip(p[0], boxes[:, 0], boxes[:, 2]), np.clip(p[1], boxes[:, 1], boxes[:, 3])], axis=1)
         leader = np.hstack([np.broadcast_to(p, ends.shape), ends])
         with_leader = far >= _LEADER_FROM
+        fallback = far >= _FALLBACK_FROM
+        # A leader over another label or marker: refused nearby; out of a tight cluster it cannot be helped.
+        crossed = np.zeros(len(boxes))
         if blocked:
-            refused |= with_leader & _hits(np.asarray(blocked), leader).any(axis=0)
+            crossed += _hits(np.asarray(blocked), leader).sum(axis=0)
         if len(others):
-            refused |= with_leader & _hits(others, leader).any(axis=0)
-        cost = np.where(refused, 1e6, 0.0) + 2.5 * far + 0.01 * np.arange(len(boxes))
+            crossed += _hits(others, leader).sum(axis=0)
+        refused |= with_leader & ~fallback & (crossed > 0)
+        cost = (np.where(refused, 1e6, 0.0) + 1e3 * fallback + 50.0 * fallback * crossed + 2.5 * far
+                + 0.01 * np.arange(len(boxes)))
         if segments.size:
             cost += 2.0 * (_hits(boxes, segments) @ weights)
         if leaders:

@@ -90,8 +90,20 @@ def draw_lot_diagram(ax, lot, *, space="xy", title=None):
             gid="lot_samples", label=f"samples ({lot['n_samples']})")
     ax.plot(*to_space(mean), marker="D", ms=5, mfc="white", mec=INK, mew=1.0, ls="none", gid="lot_mean",
             label="mean point")
-    ax.legend(loc="upper left", handlelength=2.0)
+    _legend_in_view(ax, loc="upper left", handlelength=2.0)
     return ax
+
+
+def _legend_in_view(ax, **options):
+    """A legend of the labelled lines that show inside the axes' limits (a locus out of view is not listed)."""
+    (x0, x1), (y0, y1) = sorted(ax.get_xlim()), sorted(ax.get_ylim())
+    shown = []
+    for line in ax.get_lines():
+        xy = np.asarray(line.get_xydata(), dtype=float).reshape(-1, 2)
+        inside = (xy[:, 0] >= x0) & (xy[:, 0] <= x1) & (xy[:, 1] >= y0) & (xy[:, 1] <= y1)
+        if not line.get_label().startswith("_") and inside.any():
+            shown.append(line)
+    return ax.legend(shown, [line.get_label() for line in shown], **options)
 
 
 def draw_lot_histogram(ax, lot, key):

@@ -54,7 +54,7 @@ class SpectrumPanel:
             ax.plot(GRID_NM, luminous_efficiency(), color=INK, lw=0.6, ls=":", label="V(λ)", gid="v_lambda")
         if melanopic:
             mel = action_spectra_s026()[:, 4]
-            ax.plot(GRID_NM, mel / mel.max(), color=MUTED, lw=0.6, ls="-.", label="melanopic s_mel(λ)", gid="melanopic")
+            ax.plot(GRID_NM, mel / mel.max(), color=MUTED, lw=0.6, ls="-.", label="melanopic action spectrum", gid="melanopic")
         ax.set_xlim(360, 830)
         ax.set_ylim(0, 1.05)
         ax.set_xlabel("wavelength (nm)")
@@ -74,7 +74,11 @@ class SpectrumPanel:
         self.reference.set_ydata(np.asarray(reference) / scale if has_reference else np.full(GRID_NM.size, np.nan))
         self.reference.set_visible(has_reference)
         self.reference.set_label(reference_label if has_reference else "_none")
-        top = max(1.05, float(np.nanmax(self.reference.get_ydata())) * 1.05 if has_reference else 1.05)
+        # The axis holds the reference where the lamp was measured; beyond, the reference may run off the top.
+        held = self.reference.get_ydata() if has_reference else np.zeros(1)
+        if has_reference and measured_range_nm is not None:
+            held = np.where((GRID_NM >= measured_range_nm[0]) & (GRID_NM <= measured_range_nm[1]), held, np.nan)
+        top = max(1.05, float(np.nanmax(held)) * 1.05 if np.any(np.isfinite(held)) else 1.05)
         self.ax.set_ylim(0, top)
         return self
 

@@ -77,6 +77,55 @@ def plain_text(text, weight="normal"):
     )
 
 
+_SUPERSCRIPTS = str.maketrans("-0123456789", "⁻⁰¹²³⁴⁵⁶⁷⁸⁹")
+
+
+def plain_number(value, powers=False):
+    """A tick value as plain text: "500", "10 000", "10⁶" (no math text, which lampcalc's figures do not parse).
+
+    A power of ten prints as one ("10⁴") with ``powers``, or when it is 10⁵ or more, or below 0.01.
+
+    Examples
+    --------
+    >>> plain_number(2000.0), plain_number(20000.0), plain_number(1e8), plain_number(0.5), plain_number(1e4, powers=True)
+    ('2000', '20 000', '10⁸', '0.5', '10⁴')
+    """
+    import math
+
+    if value <= 0 or not math.isfinite(value):
+        return f"{value:g}"
+    exponent = math.log10(value)
+    if abs(exponent - round(exponent)) < 1e-9 and (powers or not -2 <= exponent < 5):
+        return "10" + str(round(exponent)).translate(_SUPERSCRIPTS)
+    if value >= 10000:
+        return f"{value:,.0f}".replace(",", " ")
+    return f"{value:g}"
+
+
+def plain_log_ticks(axis):
+    """Label a log ``axis`` in plain text: the decades, and 2 and 5 times them when the axis spans under three decades.
+
+    matplotlib's own log labels are math text ("$\\mathdefault{10^{3}}$"), which lampcalc's style
+    prints as typed (``text.parse_math`` is off so that lamp names are never math).
+    """
+    import math
+
+    from matplotlib.ticker import FuncFormatter
+
+    def wide():
+        low, high = sorted(axis.get_view_interval())
+        return low <= 0 or math.log10(high / low) >= 3
+
+    def minor(value, _pos):
+        if wide():
+            return ""
+        mantissa = value / 10 ** math.floor(math.log10(value) + 1e-9)
+        return plain_number(value) if any(abs(mantissa - m) < 1e-6 for m in (2, 5)) else ""
+
+    axis.set_major_formatter(FuncFormatter(lambda value, _pos: plain_number(value, powers=wide())))
+    axis.set_minor_formatter(FuncFormatter(minor))
+
+
 def pin_axis_labels(ax, x_below_pt=15.0, y_left_pt=24.0):
     """Place the axis labels at fixed distances from the axes, so drawing needs no tick-label boxes.
 

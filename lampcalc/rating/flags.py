@@ -22,9 +22,9 @@ FLAG_MEANINGS = {
     ),
     "ler_depends_on_range": (
         "the spectrum carries 5 % or more of its peak at an end of the range LER is computed over "
-        "(ler_range_nm): LER would change with a wider range"
+        "(the measured part of 360–830 nm): LER would change with a wider measured range"
     ),
-    "cri_outside_validity": "DC > 5.4e-3: Ra and Ri computed outside CIE 13.3's validity",
+    "cri_outside_validity": "DC > 0.0054: Ra and Ri computed outside CIE 13.3's validity",
     "rendering_not_meaningful": "no CCT, hence no reference illuminant: Ra, Ri, Rf, Rg are null",
     "no_reference_above_25000K": (
         "CCT above 25 000 K: CIE 13.3 and CIE 224 define no reference illuminant there (CIE daylight "
@@ -35,15 +35,15 @@ FLAG_MEANINGS = {
         "bin's values are null"
     ),
     "bin_corners_unconfirmed": (
-        "the quadrangle or bin the lamp is in, or within 1e-3 (u, v) of, has corners not read from a published "
-        "table (ANSI 2200 and 2500 K: built by the standard's construction); supply the published ones with --bins FILE"
+        "the quadrangle or bin the lamp is in, or within 0.001 in (u, v) of, has corners not read from a published "
+        "table (ANSI 2200 and 2500 K: built by the standard's construction); supply the published corners as a bin set file"
     ),
     "steps_metric_outside_set_range": (
         "steps counted with the metric of the ellipse set's nearest centre (nominal CCT outside the set's centres)"
     ),
     "steps_metric_unconfirmed": (
         "the steps use metric values not confirmed from a published source (the shipped IEC 60081 Annex D "
-        "ellipses and CIE TN 001 circle radius); supply the published ones with --ellipses FILE"
+        "ellipses and CIE TN 001 circle radius); supply the published values as an ellipse set file"
     ),
     "purple_complementary_wavelength": (
         "the chromaticity lies towards the purple line: no dominant wavelength; its complementary "
@@ -53,11 +53,11 @@ FLAG_MEANINGS = {
     "fwhm_at_range_end": "the highest peak stays above half its height up to an end of the measured range: no FWHM",
     "fwhm_below_grid_resolution": (
         "the highest peak is under 3 nm wide on the 1 nm computation grid, which cannot resolve it: "
-        "the line itself may be narrower than fwhm_nm"
+        "the line itself may be narrower than the FWHM given"
     ),
     "uncertainty_incomplete": "some Monte Carlo draws gave no value for a rating (e.g. no CCT): its uncertainty is null",
     "uncertainty_crosses_validity": (
-        "in part of the Monte Carlo draws a validity limit is crossed (e.g. DC > 5.4e-3, |Duv| > 0.05) that the "
+        "in part of the Monte Carlo draws a validity limit is crossed (e.g. DC > 0.0054, |Duv| > 0.05) that the "
         "spectrum as measured does not cross, or the reverse: the intervals of the ratings it concerns mix valid and "
         "doubtful values and are in parentheses"
     ),
@@ -69,15 +69,15 @@ FLAG_MEANINGS = {
     "lot_too_small_for_sd": "fewer than 2 samples: no standard deviation and no pairwise Δu′v′",
     "lot_too_small_for_ellipse": "fewer than 3 samples: no covariance ellipse",
     "lot_not_white": "the lot's mean point has no CCT or lies beyond 0.05 in Duv, hence no centre: no colour-consistency steps",
-    "lot_doubtful_values": "some samples have values outside their method's validity; the statistics of the ratings in doubtful_ratings include them",
-    "lot_partial_values": "some samples lack some ratings; the statistics of the ratings in partial_ratings cover fewer samples than the lot",
+    "lot_doubtful_values": "some samples have values outside their method's validity; the statistics of the ratings named include them",
+    "lot_partial_values": "some samples lack some ratings; the statistics of the ratings named cover fewer samples than the lot",
     "luminous_ratio_needs_absolute_spectra": "no luminous ratio: it needs both spectra absolute and in the same quantity",
 }
 
 #: Flag -> output keys whose values it makes doubtful (shown in parentheses, never as ordinary).
 DOUBTFUL_KEYS = {
     "cri_outside_validity": ("ra", "ri"),
-    "duv_beyond_0.05": ("rf", "rg"),
+    "duv_beyond_0.05": ("cct_K", "rf", "rg", "rf_hue_bins", "chroma_shift_hue_bins_percent", "hue_shift_hue_bins_rad"),
     "ler_depends_on_range": ("ler_lm_per_W",),
     "bin_corners_unconfirmed": ("ansi_nominal_cct_K", "bin"),
     "steps_metric_outside_set_range": ("sdcm_steps",),
@@ -103,6 +103,11 @@ NULLED_KEYS = {
 }
 
 
+#: Flag -> the command-line option that supplies what it lacks: the terminal adds it to the flag's words
+#: (the report, which a client reads, does not).
+FLAG_OPTIONS = {"bin_corners_unconfirmed": "--bins FILE", "steps_metric_unconfirmed": "--ellipses FILE"}
+
+
 def explain(flag):
     """One sentence for ``flag``.
 
@@ -112,6 +117,12 @@ def explain(flag):
         For a flag with no words: every flag lampcalc raises must be listed here.
     """
     return FLAG_MEANINGS[flag]
+
+
+def explain_with_option(flag):
+    """``explain(flag)`` and, where an option supplies what the flag lacks, that option: the terminal's words."""
+    option = FLAG_OPTIONS.get(flag)
+    return explain(flag) + (f" ({option})" if option else "")
 
 
 def doubtful_keys(flags):

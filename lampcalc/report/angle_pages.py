@@ -21,7 +21,7 @@ from ..verdicts.angles import angles_of
 from ..verdicts.lot_wording import limit_line, limit_wording
 from ..verdicts.wording import format_value
 from .figure_panels import panel, small_type
-from .markers import flag_legend, flag_letters
+from .markers import flag_legend, flag_letters, letters_of
 from .tables import HEADING_MM, Column, Table, heading, key_values, key_values_height, paragraph, paragraph_height
 from .verdict_tables import verdict_table
 
@@ -32,8 +32,8 @@ WEIGHTING_NOTE = {
                  "colour where the light is."),
 }
 ANGLE_NOTE = ("The angles count as measured: no solid-angle (zonal) weighting. lampcalc applies no limit of its own; "
-              "public programme specifications name limits on colour over angle (docs/lots.md), to be checked in "
-              "the specification that applies.")
+              "some public programme specifications set limits on colour over angle: the limit is the one of the "
+              "specification that applies.")
 _COLUMNS = (("angle\n°", 0.07, "right"), ("spectrum", 0.25, "left"), ("u′", 0.09, "right"), ("v′", 0.09, "right"),
             ("CCT\nK", 0.08, "right"), ("Duv", 0.09, "right"), ("Δu′v′ from\nthe mean", 0.11, "right"),
             ("weight\n%", 0.09, "right"), ("flags", 0.13, "left"))
@@ -93,7 +93,7 @@ def _rows(report, letters):
                      format_value("duv", t["duv"][k], doubtful="duv" in doubt),
                      format_value("delta_uv_prime", t["delta_uv_prime"][k]),
                      format_value("percent", 100 * t["weight"][k] / total, decimals=1),
-                     ", ".join(letters[f] for f in record.get("flags") or ()) or "–"])
+                     letters_of(letters, record.get("flags")) or "–"])
     return rows
 
 

@@ -219,7 +219,8 @@ class Sheet:
         if text_width_mm(plain_text(title), size, "bold") > room:  # shortened: the whole of it under the title
             subtitle = title + ("\n" + subtitle.split("\n")[-1] if subtitle else "")
         for k, line in enumerate(subtitle.split("\n")[:2] if subtitle else ()):
-            page.text(self.left, MARGIN_MM + 6.4 + 3.1 * k, line, size=7, color=MUTED, fit_mm=self.width * 0.74)
+            # Below the report's title and number on the right: the whole width is free.
+            page.text(self.left, MARGIN_MM + 6.4 + 3.1 * k, line, size=7, color=MUTED, fit_mm=self.width)
         if title != info.heading:  # the report's title on every page that has a title of its own
             page.text(self.right, MARGIN_MM + 0.4, info.heading, size=7, color=MUTED, ha="right", fit_mm=self.width * 0.34)
         if info.report_number:

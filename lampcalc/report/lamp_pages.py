@@ -21,7 +21,7 @@ The axes are made once and moved to each page's layout; only the lamp's data cha
 """
 
 import numpy as np
-from matplotlib.ticker import MaxNLocator
+from matplotlib.ticker import MaxNLocator, MultipleLocator
 
 from ..plots.diagram import ChromaticityDiagram, window_around
 from ..plots.hue import BAR_SCALES, HueBars, HueGraphic
@@ -170,7 +170,7 @@ class _Axes:
             ax.xaxis.set_major_locator(MaxNLocator(4))
             ax.yaxis.set_major_locator(MaxNLocator(4))
         pin_axis_labels(self.spectrum.ax, 12, 20)
-        self.spectrum.ax.set_yticks([0.0, 0.5, 1.0])
+        self.spectrum.ax.yaxis.set_major_locator(MultipleLocator(0.5))
         for bar in self.bars:
             bar.ax.grid(False)
 

@@ -22,7 +22,7 @@ from ..plots.style import INK, LAMP, MUTED, pin_axis_labels
 from ..rating.flags import explain
 from ..standards.ansi_bins import ansi_bin_set
 from ..verdicts.lot import LOT_RATINGS, STEP_COUNTS
-from ..verdicts.lot_wording import word_lot_checks
+from ..verdicts.lot_wording import RATING_WORDS, word_lot_checks
 from ..verdicts.spread import chi_square_2dof
 from ..verdicts.wording import DIGITS, MISSING, QUALIFIED, format_value, lamp_line, lamp_status
 from .figure_panels import panel, small_type
@@ -43,13 +43,6 @@ STATISTICS_NOTE = (
     "lowest and highest. ( ): the statistic includes samples whose value is outside its method's validity, or rests "
     f"on values no published source confirms (see the flags). {MISSING}: none."
 )
-#: Rating -> label in the statistics table.
-LABELS = {"cct_K": "CCT", "duv": "Duv", "ra": "Ra", "r9": "R9", "rf": "Rf", "rg": "Rg", "ler_lm_per_W": "LER",
-          "luminous_flux_lm": "luminous flux", "radiant_flux_W": "radiant flux", "illuminance_lx": "illuminance",
-          "luminance_cd_per_m2": "luminance", "efficacy_lm_per_W": "lamp efficacy", "sp_ratio": "S/P",
-          "melanopic_der": "mel-DER", "melanopic_edi_lx": "mel-EDI", "sdcm_steps": "steps from the centre"}
-
-
 def _number(key, value, doubtful=False, signed=None):
     """A lot number with the digits of its rating (R9 those of the Ri)."""
     return format_value("ri" if key == "r9" else key, value, doubtful=doubtful, signed=signed)
@@ -138,7 +131,7 @@ def flag_lines(lot):
     lists = {"lot_doubtful_values": "doubtful_ratings", "lot_partial_values": "partial_ratings"}
     lines = []
     for flag in lot["flags"]:
-        which = f" ({', '.join(LABELS.get(r, r) for r in lot[lists[flag]])})" if flag in lists else ""
+        which = f" ({', '.join(RATING_WORDS.get(r, r) for r in lot[lists[flag]])})" if flag in lists else ""
         lines.append(explain(flag) + which)
     return lines
 
@@ -153,7 +146,7 @@ def statistics_table(lot, width_mm):
             continue
         doubt = _doubtful(lot, key)
         unit = DIGITS.get("ri" if key == "r9" else key, (None, ""))[1]
-        rows.append([LABELS[key], unit, str(lot[f"{key}_n"]),
+        rows.append([RATING_WORDS[key], unit, str(lot[f"{key}_n"]),
                      *(_number(key, lot[f"{key}_{s}"], doubt, False if s == "sd" else None)
                        for s in ("mean", "sd", "min", "p05", "p95", "max"))])
     return Table(columns, rows, size=6.4)

@@ -40,6 +40,11 @@ def _letter(k):
     return ascii_lowercase[k] if k < 26 else ascii_lowercase[k // 26 - 1] + ascii_lowercase[k % 26]
 
 
+def letters_of(letters, flags):
+    """The letters of ``flags`` in legend order, "a, c, d" ("" for none)."""
+    return ", ".join(sorted((letters[f] for f in flags or ()), key=lambda k: (len(k), k)))
+
+
 def flag_legend(letters, flags):
     """Legend lines "a  words" for the ``flags`` present, in letter order."""
     shown = sorted(set(flags), key=lambda f: (len(letters[f]), letters[f]))

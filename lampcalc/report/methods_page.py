@@ -29,12 +29,13 @@ METHODS = [
      "measured range the spectrum is zero, never extrapolated; a spectrum that does not cover 380–780 nm is flagged."),
     ("Observer", "CIE 1931 2° standard observer (CIE 015:2018) for chromaticity, CCT, Duv, CIE 13.3 and the ANSI "
      "categories; CIE 1964 10° for CIE 224 / TM-30-18, as that method prescribes."),
-    ("CCT and Duv", "The exact nearest point of the Planckian locus (c2 = 1.4388e-2 m·K) in the CIE 1960 (u, v) "
+    ("CCT and Duv", "The exact nearest point of the Planckian locus (c2 = 1.4388 × 10⁻² m·K) in the CIE 1960 (u, v) "
      "diagram, not an approximation formula. Duv is positive above the locus (towards green), as in ANSI C78.377. "
-     "No CCT outside 1000–100 000 K; beyond |Duv| = 0.05 a CCT is flagged, as CIE 015:2018 advises."),
+     "No CCT outside 1000–100 000 K; beyond |Duv| = 0.05 a CCT is flagged and printed in parentheses, as "
+     "CIE 015:2018 advises against its use."),
     ("Colour rendering", "CIE 13.3-1995: Ra and R1–R14, with R15 the skin-tone sample of JIS Z 8726:1990; "
      "reference Planckian below 5000 K, CIE daylight from 5000 K; values unrounded (tables that round each Ri first "
-     "can differ by one in Ra's last digit). Valid where the distance DC ≤ 5.4e-3; beyond, values are printed "
+     "can differ by one in Ra's last digit). Valid where the distance DC ≤ 0.0054; beyond, values are printed "
      "in parentheses."),
     ("Fidelity and gamut", "CIE 224:2017 Rf and ANSI/IES TM-30-18 Rf, Rg and the 16 hue bins (local fidelity Rf,h, "
      "chroma shift Rcs,h, hue shift Rhs,h): 99 colour samples, CIECAM02 and CAM02-UCS, reference Planckian below "
@@ -98,6 +99,14 @@ PART_METHODS = {
 }
 
 
+def _with_edition(name, edition):
+    """A set's name with what its edition adds ("… ellipses (+A1:2000)"), the edition not said twice."""
+    head, _, rest = edition.partition(" (")
+    if head in name:
+        return f"{name} ({rest}" if rest else name
+    return f"{name} ({edition})"
+
+
 def _unconfirmed_text(records):
     """The shipped values no published source in hand confirms, from the sets' own marks; and the user's sets."""
     from ..standards.ansi_bins import ansi_bin_set
@@ -105,14 +114,15 @@ def _unconfirmed_text(records):
 
     bins = ansi_bin_set()
     built = [name for name, confirmed in zip(bins.names, bins.bin_confirmed) if not confirmed]
-    items = [f"the quadrangles of {', '.join(built)} K in {bins.name} (corners built by the standard's construction, "
+    listed = " and ".join([", ".join(built[:-1]), built[-1]] if len(built) > 1 else built)
+    items = [f"{bins.name}: those of {listed} K (corners built by the standard's construction, "
              "not read from its published table)"] if built else []
     shipped = {}
     for kind in SHIPPED:
         ellipses = shipped_ellipse_set(kind)
         shipped[ellipses.name] = ellipses
         if not ellipses.confirmed:
-            items.append(f"the {ellipses.name} ({ellipses.edition})")
+            items.append("the " + _with_edition(ellipses.name, ellipses.edition))
     text = ("These shipped values are held by lampcalc but not yet checked against the published text: "
             + "; ".join(items) + f". A verdict that rests on one of them is marked {QUALIFIED}, and so is a value "
             "that uses them (in parentheses, with its flag); confirm them against your copy of the standard, or "
@@ -174,8 +184,10 @@ class MethodsPage:
             width = report.paper.width_mm - 2 * MARGIN_MM - HEAD_MM
             room = report.paper.height_mm - 2 * MARGIN_MM - HEADER_MM - FOOTER_MM
             pages, used = headed_pages(_blocks(report), HEAD_MM, width, room, size=TEXT_PT, gap_mm=GAP_MM)
-            if used + SIGN_MM > room:
-                pages.append([])
+            if used + SIGN_MM > room:  # the cautions and the software go over with the signature, never a bare line
+                moved = min(2, len(pages[-1]) - 1)
+                pages.append(pages[-1][len(pages[-1]) - moved:])
+                del pages[-2][len(pages[-2]) - moved:]
             report.cache["methods"] = (pages, width)
         return report.cache["methods"]
 

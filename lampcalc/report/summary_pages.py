@@ -14,7 +14,7 @@ import numpy as np
 from ..plots.diagram import ChromaticityDiagram, near_white
 from ..plots.style import INK, LAMP, MUTED, pin_axis_labels
 from ..verdicts.wording import count_line, lamp_status, short_status
-from .markers import VALIDITY_LEGEND, flag_legend, flag_letters, quote
+from .markers import VALIDITY_LEGEND, flag_legend, flag_letters, letters_of, quote
 from .tables import Cell, Column, Table, key_values, wrap, key_values_height, line_mm, paragraph, paragraph_height
 from .uncertainty_pages import regions
 
@@ -48,7 +48,7 @@ def _row(number, record, verdict, letters):
     status = lamp_status(verdict) if verdict is not None else True
     claims = Cell(short_status(verdict), weight="bold" if status is False else "normal",
                   color=LAMP if status is False else INK)
-    flags = ", ".join(letters[f] for f in record.get("flags") or ())
+    flags = letters_of(letters, record.get("flags"))
     return [str(number), record["name"], quote(record, "cct_K"), quote(record, "duv"), quote(record, "ansi_nominal_cct_K"),
             quote(record, "sdcm_steps"), quote(record, "ra"), quote(record, "ri", index=8), quote(record, "rf"),
             quote(record, "rg"), quote(record, "ler_lm_per_W"), quote(record, "sp_ratio"),
@@ -71,10 +71,14 @@ def _overview(report):
         return rated + ".", "", alarm
     status = [lamp_status(v) for v in report.verdicts.lamps]
     claimed, failed, open_ = len(status), status.count(False), status.count(None)
+    lamps = f"lamp{'s' if claimed != 1 else ''} with claims"
     if failed:
-        lead = f"{failed} of {claimed} lamps with claims do not meet every claim."
+        lead = f"{failed} of {claimed} {lamps} {'do' if failed != 1 else 'does'} not meet every claim."
     elif open_:
-        lead = f"No claim is shown to fail, but {open_} of {claimed} lamps have claims that could not be evaluated."
+        lead = (f"No claim is shown to fail, but {open_} of {claimed} {lamps} "
+                f"{'have' if open_ != 1 else 'has'} claims that could not be evaluated.")
+    elif claimed == 1:
+        lead = "The lamp with claims meets every claim."
     else:
         lead = f"All {claimed} lamps with claims meet every claim."
     return " ".join([lead, *(t for t, _ in parts)]), count_line(report.verdicts) + ".", alarm or bool(failed or open_)

@@ -33,6 +33,47 @@ STATISTIC_WORDS = {
     "min": "lowest sample", "max": "highest sample", "p05": "5th percentile (linear)", "p95": "95th percentile (linear)",
 }
 
+#: Rating -> its name for a reader (the lot's statistics table, lot claims).
+RATING_WORDS = {"cct_K": "CCT", "duv": "Duv", "ra": "Ra", "r9": "R9", "rf": "Rf", "rg": "Rg", "ler_lm_per_W": "LER",
+                "luminous_flux_lm": "luminous flux", "radiant_flux_W": "radiant flux", "illuminance_lx": "illuminance",
+                "luminance_cd_per_m2": "luminance", "efficacy_lm_per_W": "lamp efficacy", "sp_ratio": "S/P",
+                "melanopic_der": "mel-DER", "melanopic_edi_lx": "mel-EDI", "sdcm_steps": "steps from the centre"}
+#: Statistic -> how a claim on it reads, before the rating's name.
+_STATISTIC_CLAIMS = {"n": "samples with", "mean": "mean", "sd": "sd of", "min": "lowest", "max": "highest",
+                     "p05": "5th percentile of", "p95": "95th percentile of"}
+#: Lot numbers other than a rating's statistics, in words (the keys of lampcalc.verdicts.lot.SPREAD_KEYS).
+_SPREAD_WORDS = {
+    "n_samples": "samples", "mean_x": "mean x", "mean_y": "mean y",
+    "mean_u_prime": "mean u′", "mean_v_prime": "mean v′",
+    "mean_point_cct_K": "CCT of the mean point", "mean_point_duv": "Duv of the mean point",
+    "cov_xx": "covariance of x", "cov_xy": "covariance of x and y", "cov_yy": "covariance of y",
+    "ellipse_semi_major_xy": "ellipse's semi-major axis in x, y",
+    "ellipse_semi_minor_xy": "ellipse's semi-minor axis in x, y",
+    "ellipse_max_steps_from_mean": "ellipse's largest steps from the mean point",
+    "ellipse_min_steps_from_mean": "ellipse's smallest steps from the mean point",
+    "ellipse_max_steps_from_centre": "ellipse's largest steps from the centre",
+    "max_pairwise_delta_uv_prime": "largest pairwise Δu′v′",
+    "max_delta_uv_prime_from_mean": "largest Δu′v′ from the mean point",
+    "ansi_bins_none_count": "samples in no ANSI category", "bins_none_count": "samples in no bin",
+}
+
+
+def quantity_words(quantity):
+    """A lot number named in a claim (``ra_mean``), in words (``mean Ra``).
+
+    Examples
+    --------
+    >>> quantity_words("ra_min"), quantity_words("within_3_steps_percent"), quantity_words("max_pairwise_delta_uv_prime")
+    ('lowest Ra', 'share within 3 steps', 'largest pairwise Δu′v′')
+    """
+    rating = rating_of(quantity)
+    if rating is not None:
+        return f"{_STATISTIC_CLAIMS[quantity[len(rating) + 1:]]} {RATING_WORDS.get(rating, rating)}"
+    within = re.fullmatch(r"within_(\d+)_steps_percent", quantity)
+    if within:
+        return f"share within {within.group(1)} steps"
+    return _SPREAD_WORDS.get(quantity, quantity)
+
 
 def lot_key_digits(quantity):
     """(decimals, unit, key) a number of the lot's output is written with.
@@ -98,7 +139,7 @@ def word_lot_check(check):
             why = STATISTIC_WORDS[quantity[len(rating) + 1:]]
         places, unit, _ = lot_key_digits(quantity)
         shown = side_decimals(measured, claimed, operator, passed, places)
-        claim = f"{quantity} {operator} {claimed:g}" + (f" {unit}" if unit and unit != "%" else unit)
+        claim = f"{quantity_words(quantity)} {operator} {claimed:g}" + (f" {unit}" if unit and unit != "%" else unit)
         measured_text = _lot_number(quantity, measured, shown)
         margin_words = margin_text(margin, shown if shown is not None else places, unit, passed)
     else:  # a share of the samples, in per cent

@@ -249,7 +249,9 @@ def worded_check(check, nominal, flags):
         claim = f"{words} {operator} {format_value(key, claimed, decimals=_claim_decimals(claimed))} {unit}".rstrip()
         margin_words = margin_text(margin, shown, unit, passed)
     doubtful = key in doubtful_keys(flags) and _finite(measured)
-    if doubtful:
+    # A quadrangle or bin is judged on the chromaticity: a CCT in doubt is shown so, but does not decide it.
+    decides = doubtful and criterion not in ("ansi_quadrangle", "bin")
+    if decides:
         basis = "in doubt, see the flags" + (f"; {basis}" if basis else "")
     if passed is None and not basis.startswith(("cannot", "not ", "needs", "line ")):
         basis = f"not computable for this lamp{': ' + basis if basis else ''}"
@@ -262,7 +264,7 @@ def worded_check(check, nominal, flags):
         verdict=VERDICT_WORDS[passed],
         why=basis,
         passed=passed,
-        qualified=passed is not None and (doubtful or "not confirmed" in note),
+        qualified=passed is not None and (decides or "not confirmed" in note),
     )
     return wording, key, shown if shown is not None else DIGITS.get(key, (None,))[0], _margin_measure(check, key, shown)
 

@@ -54,6 +54,19 @@ def test_demo_writes_results(run, tmp_path):
     assert f"Decision: {judged[0]['decision']} (guarded acceptance" in text
     cct = next(c for c in judged[0]["checks"] if c["criterion"] == "ansi_cct_K")
     assert "[{}, {}] K".format(*(format_value("cct_K", v) for v in cct["measured_interval95"])) in text
+    # What a client reads says things in words: no output key, no command-line option, no e-notation,
+    # nothing "from memory" (the project's rules for client-facing text; no published source).
+    import re
+
+    from lampcalc.rating.ratings import FIELDS
+
+    keys = {k for k in FIELDS if "_" in k} | {"doubtful_ratings", "partial_ratings", "ler_range_nm", "ra_mean", "ra_min"}
+    for name in ("report.pdf", "report_uncertainty.pdf", "lot_report.pdf", "angles_report.pdf", "compare_report.pdf"):
+        words = " ".join(" ".join(page.extract_text().split()) for page in PdfReader(out / name).pages)
+        assert not re.search(r"\d(\.\d+)?e[-+]?\d", words), name
+        assert not re.search(r"(^|\s)--[a-z]", words), name
+        assert "from memory" not in words.lower(), name
+        assert not {k for k in keys if re.search(rf"(?<![\w.-]){re.escape(k)}(?![\w.-])", words)}, name
 
 
 # --- lampcalc cct ---

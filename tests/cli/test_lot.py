@@ -47,7 +47,9 @@ def test_demo_lot_writes_every_key_and_a_verdict(demo_lot):
     assert "Lot claims of QF-SPOT-3000: the lot does not meet 1 of 4 claims" in result.output
     assert "does not meet †" in result.output and "FAILS" not in result.output  # the shared verdict words
     assert "4 lot claims: 3 met, 1 not met, 0 not evaluated" in result.output
-    assert "† qualified: The IEC 60081 ellipse metric is not confirmed against the published table" in result.output
+    assert "† qualified: the IEC 60081 ellipse metric is not confirmed against the published table" in result.output
+    # Shares within n steps rest on that unconfirmed metric: in parentheses, as in the report.
+    assert f"3: ({lot['within_3_steps_percent']:.0f} %)" in result.output
 
 
 def test_demo_lot_csv_is_one_row_of_the_summary(demo_lot):

@@ -163,6 +163,21 @@ def test_terminal_explains_every_flag_and_marks_unconfirmed_values(run, write, b
         assert f"{flag}: {explain(flag)}" in result.stdout
     assert "(2200)" in result.stdout  # the category, in parentheses: its corners are unconfirmed
     assert "from memory" not in result.stdout
+    # The terminal names the option that supplies what a flag lacks (the report gives the words alone).
+    assert "(--bins FILE)" in result.stdout and "(--ellipses FILE)" in result.stdout
+
+
+def test_a_cct_beyond_duv_0_05_is_in_parentheses(run, write):
+    # CIE 015:2018 advises against a CCT this far from the locus: a green line's CCT is printed as doubtful.
+    import numpy as np
+
+    nm = np.arange(380, 781, 5)
+    green = np.exp(-0.5 * ((nm - 525) / 13.0) ** 2)
+    result = run("rate", write("green.csv", "nm,green\n" + "\n".join(f"{w},{v:.6g}" for w, v in zip(nm, green))))
+    assert result.exit_code == 0
+    (row,) = [line for line in result.stdout.splitlines() if line.startswith("green ")]
+    cct = row.split()[1]
+    assert cct.startswith("(") and cct.endswith(")") and "duv_beyond_0.05" in row
 
 
 # --- any number of lamps: streamed in chunks, the same bytes (docs/scale.md) ---

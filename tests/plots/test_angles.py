@@ -37,6 +37,10 @@ def test_figure_draws_what_it_is_given(tmp_path):
     np.testing.assert_array_equal(_line(fig, "delta_uv_prime").get_xydata(), np.stack([t["angle_deg"], t["delta_uv_prime"]], -1))
     assert _line(fig, "limit").get_ydata()[0] == 0.004
     assert tuple(_line(fig, "largest").get_xydata()[0]) == (80.0, 0.006)
+    # Its label quotes Δu′v′ with the digits of the terminal and the report (verdicts.wording.DIGITS).
+    from lampcalc.verdicts.wording import format_value
+
+    assert _line(fig, "largest").get_label() == f"largest: {format_value('delta_uv_prime', 0.006)} at 80°"
     np.testing.assert_array_equal(_line(fig, "cct").get_ydata(), t["cct_K"])
     np.testing.assert_array_equal(_line(fig, "duv").get_ydata(), t["duv"])
     assert (tmp_path / "a.png").stat().st_size > 10_000

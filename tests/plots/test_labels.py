@@ -87,3 +87,24 @@ def test_segment_geometry():
     assert not _hits([(0, 0, 1, 1)], [(2, 0, 3, 1)])[0, 0]
     assert _hits([(0, 0, 1, 1)], [(0.5, -1, 0.5, 2)])[0, 0]  # vertical, through the middle
     assert _cross([(0, 0, 1, 1)], [(0, 1, 1, 0)])[0, 0] and not _cross([(0, 0, 1, 0)], [(0, 1, 1, 1)])[0, 0]
+
+
+def test_a_tight_cluster_still_gets_labels_apart():
+    # A lot of 12 samples within ±0.002 of one point, on the whole white-region diagram (the summary
+    # page of a lot): the labels stay apart even when every place beside the points is taken.
+    from lampcalc.colorimetry.locus import cct_duv_to_xy
+
+    rng = np.random.default_rng(12)
+    xy = cct_duv_to_xy([3000.0, 0.001]) + rng.uniform(-0.002, 0.002, (12, 2))
+    with figure_style():
+        fig = new_figure((6.5, 4.4))
+        fig.set_layout_engine(None)
+        ax = fig.add_axes([0.1, 0.1, 0.85, 0.85])
+        ChromaticityDiagram(ax, zoom=True, legend=False).show([(f"S{k}", p) for k, p in enumerate(xy)],
+                                                               labels=[str(k + 1) for k in range(12)])
+        labels = [t for t in ax.texts if (t.get_gid() or "").startswith("label:")]
+        boxes = _boxes(fig, labels)
+        assert len(boxes) == 12
+        for k, a in enumerate(boxes):
+            for b in boxes[k + 1:]:
+                assert not a.overlaps(b)

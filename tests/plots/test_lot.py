@@ -48,6 +48,9 @@ def test_diagram_draws_samples_mean_ellipse_and_rings(lot):
         np.testing.assert_allclose(np.sqrt(np.einsum("ni,ij,nj->n", d, F3000, d)), n, rtol=1e-9)
     # the diagram's own elements are there too (ANSI quadrangles, Planckian locus)
     assert _gid(ax, "planckian_locus") and _gid(ax, "quadrangle:3000")
+    # The legend lists what shows: the CIE daylight locus starts at 4000 K (CIE 015:2018), far from a 3000 K lot.
+    listed = [t.get_text() for t in ax.get_legend().get_texts()]
+    assert "Planckian locus" in listed and "mean point" in listed and "CIE daylight locus" not in listed
 
 
 def test_diagram_in_upvp(lot):

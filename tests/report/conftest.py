@@ -82,6 +82,7 @@ def odd_lamps():
         ("narrow RGB", line(450, 10) + 0.9 * line(530, 14) + 0.8 * line(615, 8)),
         (r"$\foo$ lamp", line(450, 12) + 1.6 * line(560, 50)),
         ("灯 lamp", line(450, 12) + 1.4 * line(575, 55)),
+        ("green LED 525 nm", line(525, 13)),
     ])
     ratings = lampcalc.rate_spectra(batch)
     return ratings

@@ -106,3 +106,28 @@ def test_alpha_opic_ratios_are_on_the_page(demo_report, demo_check, key):
     _, pages = demo_report
     for record in ratings.records():
         assert format_value(key, record[key]) in _page_of(pages, record["name"])
+
+
+def test_a_cct_far_from_the_locus_is_in_parentheses_with_its_hue_bins(odd_report, odd_lamps):
+    # CIE 015:2018 advises against a CCT beyond |Duv| = 0.05: a green LED's CCT, and the CIE 224 values
+    # built on its reference (Rf, Rg, every hue bin), are printed as doubtful, never as ordinary numbers.
+    _, pages = odd_report
+    record = next(r for r in odd_lamps.records() if r["name"] == "green LED 525 nm")
+    assert "duv_beyond_0.05" in record["flags"] and abs(record["duv"]) > 0.05
+    page = _page_of(pages, "green LED 525 nm")
+    assert f"({format_value('cct_K', record['cct_K'], unit=True)})" in page
+    assert f"({format_value('rf', record['rf'])})" in page
+    for key in ("rf_hue_bins", "chroma_shift_hue_bins_percent"):
+        assert all(f"({format_value(key, v)})" in page for v in record[key])
+    assert f"({format_value('cct_K', record['cct_K'])})" in pages[0]  # the summary table too
+
+
+def test_the_data_line_of_every_lamp_page_is_whole(demo_report, demo_check):
+    # The source and the resampling method head each lamp page, never shortened ("Sprague (CIE 167:2…").
+    from lampcalc.verdicts.wording import INTERPOLATION_WORDS
+
+    ratings, _ = demo_check
+    _, pages = demo_report
+    for record in ratings.records():
+        page = _page_of(pages, record["name"])
+        assert f"onto the 1 nm grid: {INTERPOLATION_WORDS[record['interpolation']]}" in page, record["name"]

@@ -40,7 +40,7 @@ def test_every_claim_in_the_three_words(verdicts):
     assert share.qualified and share.verdict_text.endswith(QUALIFIED)  # the shipped IEC 60081 metric is unconfirmed
     assert notes == ["the IEC 60081 ellipse metric is not confirmed against the published table: confirm it before a dispute"]
     assert "confirm it" not in share.why  # said once, under the table
-    assert mean.claim == "ra_mean ≥ 90" and mean.measured == f"{ra.mean():.1f}" and mean.verdict == "does not meet"
+    assert mean.claim == "mean Ra ≥ 90" and mean.measured == f"{ra.mean():.1f}" and mean.verdict == "does not meet"
     assert mean.margin == f"{ra.mean() - 90:+.1f}" and mean.why == "mean of the samples"
     assert low.verdict == "meets" and low.measured == f"{ra.min():.1f}" and low.why == "lowest sample"
     # relative spectra have no luminous flux: the claim is not evaluated, and says why

@@ -129,6 +129,13 @@ def test_qualified_verdicts():
     assert "tolerance not confirmed" in flexible.why
     plain = word_check(_check("rf", 78.0, 80.9, 2.9, True))
     assert not plain.qualified and plain.verdict_text == "meets"
+    # Beyond |Duv| 0.05 CIE 015:2018 advises against a CCT: a CCT tolerance judged on it is qualified, but
+    # the quadrangle is judged on the chromaticity (ANSI C78.377-2017): its verdict stands, the CCT shown in doubt.
+    far = ["duv_beyond_0.05"]
+    cct = word_check(_check("ansi_cct_K", 5029.0, 8003.0, -2691.0, False), nominal=5000.0, flags=far)
+    assert cct.qualified and cct.measured == "(8003 K)"
+    quadrangle = word_check(_check("ansi_quadrangle", 5000.0, 8003.0, -148.8, False), flags=far)
+    assert not quadrangle.qualified and quadrangle.measured == "(8003 K)" and not quadrangle.why.startswith("in doubt")
 
 
 def test_counts_tell_not_met_from_not_evaluated():
