@@ -114,11 +114,11 @@ def cct(csv_file, xy, uv, upvp, csv_out, json_out, observer):
             "ANSI: the ANSI C78.377-2017 nominal CCT category whose published quadrangle holds the point "
             "('-': in none; the categories are defined for the CIE 1931 2 deg observer only)."
         )
-        if any(f for *_, f in shown):
-            click.echo(
-                "flags: cct_below_1000K / cct_above_100000K: no CCT in range (shown '-'); "
-                "duv_beyond_0.05: computed, but CIE 015 advises against using a CCT this far from the locus."
-            )
+        raised = sorted({flag for *_, f in shown for flag in f.split(";") if flag})
+        if raised:
+            from ..rating.flags import explain
+
+            click.echo("Flags:\n" + "\n".join(f"  {flag}: {explain(flag)}" for flag in raised))
     for message in problems:
         click.echo(f"lampcalc: {message}", err=True)
     if problems:

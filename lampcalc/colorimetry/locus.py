@@ -221,6 +221,35 @@ def _table(observer):
     return _LocusTable(observer)
 
 
+@functools.lru_cache(maxsize=None)
+def _spectrum_locus_edges(observer):
+    """The convex hull of the spectrum locus and purple line in (u, v): edge starts and inward normals.
+
+    Every real spectrum is a non-negative mix of monochromatic stimuli, so its chromaticity
+    lies in this hull (CIE 015:2018, clause 8.1: the spectrum locus and the purple line
+    enclose all real colours); a point outside it is not the chromaticity of any light.
+    """
+    from scipy.spatial import ConvexHull
+
+    XYZ = colour_matching_functions(observer)
+    XYZ = XYZ[XYZ.sum(axis=-1) > 0]
+    uv = xy_to_uv(XYZ[:, :2] / XYZ.sum(axis=-1, keepdims=True))
+    corners = uv[ConvexHull(uv).vertices]  # counter-clockwise
+    edge = np.roll(corners, -1, axis=0) - corners
+    inward = np.stack([-edge[:, 1], edge[:, 0]], axis=-1) / np.hypot(edge[:, 0], edge[:, 1])[:, None]
+    return corners, inward
+
+
+def outside_spectrum_locus(uv, observer="1931_2deg"):
+    """True where (u, v), shape (n, 2), lies outside the spectrum locus and purple line.
+
+    By more than 1e-4 in (u, v): coordinates rounded to four decimals, as data sheets print them,
+    still count when they lie on the locus itself."""
+    corners, inward = _spectrum_locus_edges(observer)
+    distance = np.einsum("nkj,kj->nk", uv[:, None, :] - corners[None], inward)
+    return np.any(distance < -1e-4, axis=-1)
+
+
 def _locate_chunk(observer, uv):
     table = _table(observer)
     good = np.all(np.isfinite(uv), axis=-1)
@@ -295,9 +324,18 @@ def locate_with_flags(coords, system, observer="1931_2deg"):
     """CCT, Duv and flag text for an ``(n, 2)`` array of coordinates.
 
     ``system`` names the coordinates, a key of :data:`COORDINATE_SYSTEMS`: ``"xy"``
-    (CIE 1931), ``"uv"`` (CIE 1960) or ``"upvp"`` (CIE 1976 u′, v′).
+    (CIE 1931), ``"uv"`` (CIE 1960) or ``"upvp"`` (CIE 1976 u′, v′). These are coordinates a
+    user typed or read from a table, not computed from a spectrum: a point outside the
+    spectrum locus is the chromaticity of no light, so it gets no CCT and the flag
+    ``not_a_chromaticity`` (:func:`locate` itself computes CCT and Duv anywhere).
     """
-    cct, duv, status = locate(COORDINATE_SYSTEMS[system](coords), observer)
+    uv = np.asarray(COORDINATE_SYSTEMS[system](coords), dtype=float).reshape(-1, 2)
+    cct, duv, status = locate(uv, observer)
+    finite = np.all(np.isfinite(uv), axis=-1)
+    unreal = np.zeros(finite.shape, dtype=bool)
+    unreal[finite] = outside_spectrum_locus(uv[finite], observer)
+    status[unreal] = STATUS_NOT_A_CHROMATICITY
+    cct[unreal], duv[unreal] = np.nan, np.nan
     text = {code: flag_text(code) for code in np.unique(status).tolist()}
     return cct, duv, [text[code] for code in status.tolist()]
 

@@ -14,7 +14,10 @@ FLAG_MEANINGS = {
     "cct_below_1000K": "no CCT: the chromaticity is below 1000 K, so CCT and Duv are null",
     "cct_above_100000K": "no CCT: the chromaticity is above 100 000 K, so CCT and Duv are null",
     "duv_beyond_0.05": "CCT computed, but CIE 015 advises against using a CCT this far from the locus",
-    "not_a_chromaticity": "the values are not a chromaticity, so CCT and Duv are null",
+    "not_a_chromaticity": (
+        "the values are not the chromaticity of any light (not numbers, or outside the spectrum locus), "
+        "so CCT and Duv are null"
+    ),
     "efficacy_needs_flux_spectrum": "electrical power given, but the spectrum is not in W/nm, so no lamp efficacy",
     "efficacy_impossible_flux_exceeds_power": (
         "the radiant flux exceeds the electrical power, which no lamp can do (a unit error such as mW/nm "

@@ -233,3 +233,25 @@ def test_isotemperature_lines_are_normal_to_the_locus():
         direction = line[-1] - line[0]
         assert abs(np.dot(direction, tangent)) / (np.linalg.norm(direction) * np.linalg.norm(tangent)) < 1e-10
         np.testing.assert_allclose(lo.locate(line)[0], t, rtol=1e-9)
+
+
+def test_points_outside_the_spectrum_locus_are_not_chromaticities():
+    # CIE 015:2018, clause 8.1: the spectrum locus and the purple line enclose every real colour.
+    # Monochromatic points from colour-science's CIE 1931 CMFs (reference library) and mixes of them
+    # are chromaticities; points beyond the locus (x + y > 1, negative, past the red end) are not.
+    import colour
+
+    cmfs = colour.MSDS_CMFS["CIE 1931 2 Degree Standard Observer"].copy().align(colour.SpectralShape(380, 700, 5))
+    XYZ = cmfs.values
+    mono = XYZ / XYZ.sum(axis=-1, keepdims=True)
+    rng = np.random.default_rng(7)
+    weights = rng.random((200, XYZ.shape[0])) ** 8  # mixes, many near the locus
+    mixes = weights @ XYZ
+    inside = np.vstack([mono[:, :2], mixes[:, :2] / mixes.sum(axis=-1, keepdims=True)])
+    assert not np.any(lo.outside_spectrum_locus(cm.xy_to_uv(inside)))
+    outside = np.array([[0.9, 0.9], [0.6, 0.5], [-0.01, 0.3], [0.76, 0.26], [0.3, 0.05]])
+    assert np.all(lo.outside_spectrum_locus(cm.xy_to_uv(outside)))
+    # coordinates given by a user get no CCT there; locate itself still computes the number
+    cct, duv, flags = lo.locate_with_flags(np.vstack([outside, [[0.3127, 0.3290]]]), "xy")
+    assert flags[:5] == ["not_a_chromaticity"] * 5 and flags[5] == ""
+    assert np.all(np.isnan(cct[:5])) and np.all(np.isnan(duv[:5])) and np.isfinite(cct[5])
