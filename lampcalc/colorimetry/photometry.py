@@ -14,10 +14,6 @@ from ..spectra.row_products import row_dot
 from ..spectra.tables import luminous_efficiency
 from .tristimulus import ratio_or_nan
 
-#: Luminous quantity and unit by radiometric quantity of the spectrum.
-LUMINOUS_UNITS = {"flux": "lm", "irradiance": "lx", "radiance": "cd/m2"}
-#: Radiant quantity unit by radiometric quantity of the spectrum (sum over the grid).
-RADIANT_UNITS = {"relative": "arbitrary units·nm", "flux": "W", "irradiance": "W/m2", "radiance": "W/(sr m2)"}
 
 
 def radiant_quantity(values):
@@ -28,7 +24,7 @@ def radiant_quantity(values):
 def luminous_quantity(values):
     """Km·Σ V(λ)·S·Δλ: luminous flux (lm), illuminance (lx) or luminance (cd/m²).
 
-    The unit follows the spectrum's (:data:`LUMINOUS_UNITS`); Km = 683 lm/W.
+    The unit follows the spectrum's (lm for W/nm, lx for W/(m² nm), cd/m² for W/(sr m² nm)); Km = 683 lm/W.
     """
     return KM_lm_per_W * row_dot(values, luminous_efficiency())
 

@@ -5,7 +5,6 @@ import pytest
 from lampcalc.rating.flags import FLAG_MEANINGS
 from lampcalc.verdicts.wording import format_value
 
-from .conftest import pdf_pages
 
 
 def _page_of(pages, name):

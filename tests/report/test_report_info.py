@@ -11,7 +11,7 @@ from lampcalc.report.report_info import INFO_KEYS, ReportInfo, read_report_info,
 
 def test_every_key_read_as_given(write):
     text = "\n".join(f'{key} = "value of {key}"' for key in INFO_KEYS) + '\nnotes = """two\nlines"""\n'
-    info = read_report_info(write("info.toml", text.replace(f'notes = "value of notes"\n', "")))
+    info = read_report_info(write("info.toml", text.replace('notes = "value of notes"\n', "")))
     assert info.client == "value of client" and info.report_number == "value of report_number"
     assert info.notes == "two\nlines"
     assert info.heading == "value of title"
