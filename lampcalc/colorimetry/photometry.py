@@ -15,7 +15,6 @@ from ..spectra.tables import luminous_efficiency
 from .tristimulus import ratio_or_nan
 
 
-
 def radiant_quantity(values):
     """Σ S·Δλ over the grid: radiant flux (W), irradiance (W/m²) or radiance, by the spectrum's unit."""
     return np.asarray(values, dtype=float).sum(axis=-1)
